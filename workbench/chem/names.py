@@ -1,0 +1,329 @@
+"""Names of sugars: IUPAC-IUBMB systematic names and the trivial names in use.
+
+Systematic names follow *Nomenclature of Carbohydrates* (IUPAC-IUBMB 1996,
+Pure Appl. Chem. 68, 1919): configurational prefixes (2-Carb-8.2), groups of
+four centres counted from C-1 with the group farthest from C-1 cited first
+(2-Carb-8.3), ketoses as ``-2-uloses``, deoxy and amino-deoxy sugars
+(2-Carb-10, -11) and uronic acids (2-Carb-20).
+
+:func:`systematic_name` and :func:`trivial_name` go from structure to name;
+:func:`from_name` goes back and accepts either.
+"""
+
+from __future__ import annotations
+
+import difflib
+import re
+from functools import lru_cache
+
+from workbench.chem.chain import LEFT, RIGHT, Chain
+from workbench.errors import NameNotRecognisedError
+
+__all__ = [
+    "PREFIXES",
+    "TRIVIAL",
+    "configurational_prefix",
+    "systematic_name",
+    "trivial_name",
+    "display_name",
+    "from_name",
+    "known_names",
+]
+
+# D-prefixes: sides of the centres from the lowest- to the highest-numbered
+# ("r" right, "l" left), IUPAC-IUBMB 2-Carb-8.2.
+PREFIXES: dict[str, str] = {
+    "r": "glycero",
+    "rr": "erythro",
+    "lr": "threo",
+    "rrr": "ribo",
+    "lrr": "arabino",
+    "rlr": "xylo",
+    "llr": "lyxo",
+    "rrrr": "allo",
+    "lrrr": "altro",
+    "rlrr": "gluco",
+    "llrr": "manno",
+    "rrlr": "gulo",
+    "lrlr": "ido",
+    "rllr": "galacto",
+    "lllr": "talo",
+}
+_PATTERN_OF = {v: k for k, v in PREFIXES.items()}
+
+_STEMS = {3: "tri", 4: "tetr", 5: "pent", 6: "hex", 7: "hept", 8: "oct", 9: "non"}
+_STEM_CARBONS = {v: k for k, v in _STEMS.items()}
+_MULTIPLIERS = {1: "", 2: "di", 3: "tri", 4: "tetra"}
+
+# Trivial names of the D-enantiomer (the L form is named by mirror image).
+# Sources: IUPAC-IUBMB 1996 (2-Carb-8, -10, -11, -20); Collins and Ferrier,
+# *Monosaccharides* (1995) for the deoxy and amino sugars [from memory].
+TRIVIAL: dict[str, str] = {
+    "glyceraldehyde": "D-glycero-triose",
+    "erythrose": "D-erythro-tetrose",
+    "threose": "D-threo-tetrose",
+    "ribose": "D-ribo-pentose",
+    "arabinose": "D-arabino-pentose",
+    "xylose": "D-xylo-pentose",
+    "lyxose": "D-lyxo-pentose",
+    "allose": "D-allo-hexose",
+    "altrose": "D-altro-hexose",
+    "glucose": "D-gluco-hexose",
+    "mannose": "D-manno-hexose",
+    "gulose": "D-gulo-hexose",
+    "idose": "D-ido-hexose",
+    "galactose": "D-galacto-hexose",
+    "talose": "D-talo-hexose",
+    "erythrulose": "D-glycero-tetrulose",
+    "ribulose": "D-erythro-pent-2-ulose",
+    "xylulose": "D-threo-pent-2-ulose",
+    "psicose": "D-ribo-hex-2-ulose",
+    "fructose": "D-arabino-hex-2-ulose",
+    "sorbose": "D-xylo-hex-2-ulose",
+    "tagatose": "D-lyxo-hex-2-ulose",
+    "sedoheptulose": "D-altro-hept-2-ulose",
+    "mannoheptulose": "D-manno-hept-2-ulose",
+    "2-deoxy-{s}-ribose": "2-deoxy-D-erythro-pentose",
+    "2-deoxy-{s}-glucose": "2-deoxy-D-arabino-hexose",
+    "2-deoxy-{s}-galactose": "2-deoxy-D-lyxo-hexose",
+    "rhamnose": "6-deoxy-D-manno-hexose",
+    "fucose": "6-deoxy-D-galacto-hexose",
+    "quinovose": "6-deoxy-D-gluco-hexose",
+    "digitoxose": "2,6-dideoxy-D-ribo-hexose",
+    "olivose": "2,6-dideoxy-D-arabino-hexose",
+    "abequose": "3,6-dideoxy-D-xylo-hexose",
+    "tyvelose": "3,6-dideoxy-D-arabino-hexose",
+    "paratose": "3,6-dideoxy-D-ribo-hexose",
+    "glucosamine": "2-amino-2-deoxy-D-gluco-hexose",
+    "galactosamine": "2-amino-2-deoxy-D-galacto-hexose",
+    "mannosamine": "2-amino-2-deoxy-D-manno-hexose",
+    "fucosamine": "2-amino-2,6-dideoxy-D-galacto-hexose",
+    "quinovosamine": "2-amino-2,6-dideoxy-D-gluco-hexose",
+    "glucuronic acid": "D-gluco-hexuronic acid",
+    "galacturonic acid": "D-galacto-hexuronic acid",
+    "mannuronic acid": "D-manno-hexuronic acid",
+    "guluronic acid": "D-gulo-hexuronic acid",
+    "iduronic acid": "D-ido-hexuronic acid",
+}
+
+
+def _with_series(trivial: str, series: str) -> str:
+    """``D-glucose`` or, for names with a placeholder, ``2-deoxy-D-ribose``."""
+    return trivial.format(s=series) if "{s}" in trivial else f"{series}-{trivial}"
+
+
+# Names that exist only as one enantiomer's name.
+_ONE_SERIES = {"colitose": "3,6-dideoxy-L-xylo-hexose", "ascarylose": "3,6-dideoxy-L-arabino-hexose"}
+_ACHIRAL = {"dihydroxyacetone": "1,3-dihydroxypropan-2-one", "glycerone": "1,3-dihydroxypropan-2-one"}
+
+
+def _pattern(sides: list[str]) -> str:
+    return "".join("r" if s == RIGHT else "l" for s in sides)
+
+
+def configurational_prefix(sides: list[str]) -> str:
+    """Prefix for stereocentres with these Fischer ``sides`` (lowest C first).
+
+    Groups of four from the centre nearest C-1; the group farthest from C-1
+    is cited first, each with its own D/L (IUPAC-IUBMB 2-Carb-8.3), e.g.
+    ``D-glycero-D-gluco``.
+    """
+    if not sides:
+        return ""
+    chunks = [sides[i : i + 4] for i in range(0, len(sides), 4)]
+    words = []
+    for chunk in reversed(chunks):
+        pat = _pattern(chunk)
+        if pat[-1] == "r":
+            words.append("D-" + PREFIXES[pat])
+        else:
+            mirrored = "".join("r" if c == "l" else "l" for c in pat)
+            words.append("L-" + PREFIXES[mirrored])
+    return "-".join(words)
+
+
+def _modifier_words(chain: Chain) -> str:
+    """``2-amino-2,6-dideoxy-3-O-methyl-`` style substituent prefixes."""
+    amino = list(chain.amino_positions)
+    deoxy = sorted(set(chain.deoxy_positions) | set(amino))
+    methyl = list(chain.methoxy_positions)
+    words = []
+    if amino:
+        words.append(f"{','.join(map(str, amino))}-{_MULTIPLIERS[len(amino)]}amino")
+    if deoxy:
+        words.append(f"{','.join(map(str, deoxy))}-{_MULTIPLIERS[len(deoxy)]}deoxy")
+    if methyl:
+        words.append(f"{','.join(map(str, methyl))}-{_MULTIPLIERS[len(methyl)]}O-methyl")
+    return "".join(w + "-" for w in words)
+
+
+def _stem(chain: Chain) -> str:
+    n = chain.carbons
+    if n not in _STEMS:
+        raise NameNotRecognisedError(chain.pattern, f"no name stem for {n} carbons (3-9 supported)")
+    if chain.carbonyl == "aldose":
+        if chain.is_uronic:
+            return f"{_STEMS[n]}uronic acid"
+        return f"{_STEMS[n]}ose"
+    if n == 4:
+        return "tetrulose"
+    return f"{_STEMS[n]}-2-ulose"
+
+
+def systematic_name(chain: Chain) -> str:
+    """IUPAC-IUBMB systematic name of a sugar, e.g. ``6-deoxy-L-manno-hexose``."""
+    if not chain.is_sugar:
+        raise NameNotRecognisedError(chain.pattern, "only aldoses and 2-ketoses are named here")
+    if chain.carbons == 3 and chain.carbonyl == "ketose" and not chain.deoxy_positions:
+        return "1,3-dihydroxypropan-2-one"
+    sides = [chain.sides[k - 1] or RIGHT for k in chain.stereocentres]
+    prefix = configurational_prefix(sides)
+    return _modifier_words(chain) + (prefix + "-" if prefix else "") + _stem(chain)
+
+
+@lru_cache(maxsize=1)
+def _trivial_by_systematic() -> dict[str, str]:
+    out = {}
+    for trivial, systematic in TRIVIAL.items():
+        out[systematic] = _with_series(trivial, "D")
+        mirrored = from_systematic(systematic).mirror()
+        out[systematic_name(mirrored)] = _with_series(trivial, "L")
+    for trivial, systematic in _ONE_SERIES.items():
+        out[systematic] = trivial
+    out["1,3-dihydroxypropan-2-one"] = "dihydroxyacetone"
+    return out
+
+
+def trivial_name(chain: Chain) -> str | None:
+    """Trivial name in common use (``L-rhamnose``), or None where there is none."""
+    if not chain.is_sugar:
+        return None
+    return _trivial_by_systematic().get(systematic_name(chain))
+
+
+def display_name(chain: Chain) -> str:
+    """The trivial name where there is one, else the systematic name."""
+    return trivial_name(chain) or systematic_name(chain)
+
+
+_SYSTEMATIC = re.compile(
+    r"^(?P<mods>(?:[0-9,]+-(?:di|tri|tetra)?(?:amino|deoxy|O-methyl)-)*)"
+    r"(?P<prefixes>(?:[DL]-[a-z]+-)*)"
+    r"(?P<stem>tri|tetr|pent|hex|hept|oct|non)"
+    r"(?P<end>ose|ulose|-2-ulose|uronic acid)$"
+)
+_MOD = re.compile(r"([0-9,]+)-(?:di|tri|tetra)?(amino|deoxy|O-methyl)-")
+
+
+def from_systematic(name: str) -> Chain:
+    """Parse a systematic name such as ``2-amino-2-deoxy-D-gluco-hexose``."""
+    text = name.strip()
+    if text in _ACHIRAL.values():
+        return Chain(("CH2OH", "CO", "CH2OH"), (None, None, None))
+    m = _SYSTEMATIC.match(text)
+    if not m:
+        raise NameNotRecognisedError(name, "not a systematic sugar name")
+    n = _STEM_CARBONS[m["stem"]]
+    end = m["end"]
+    ketose = "ulose" in end
+    uronic = end == "uronic acid"
+    if ketose and end == "ulose" and n != 4:
+        raise NameNotRecognisedError(name, "ketoses of more than 4 carbons are named '-2-ulose'")
+    mods: dict[str, set[int]] = {"amino": set(), "deoxy": set(), "O-methyl": set()}
+    for locants, word in _MOD.findall(m["mods"]):
+        mods[word].update(int(x) for x in locants.split(",") if x)
+    groups = ["CHOH"] * n
+    groups[0] = "CH2OH" if ketose else "CHO"
+    groups[-1] = "COOH" if uronic else "CH2OH"
+    if ketose:
+        groups[1] = "CO"
+    for k in mods["deoxy"] - mods["amino"]:
+        if not 1 <= k <= n or groups[k - 1] in ("CHO", "CO"):
+            raise NameNotRecognisedError(name, f"no deoxy position {k} in a {n}-carbon chain")
+        groups[k - 1] = "CH3" if k in (1, n) else "CH2"
+    for k in mods["amino"]:
+        if k not in mods["deoxy"] or groups[k - 1] != "CHOH":
+            raise NameNotRecognisedError(name, f"amino sugars are named '{k}-amino-{k}-deoxy' at a CH(OH)")
+        groups[k - 1] = "CHNH2"
+    for k in mods["O-methyl"]:
+        if groups[k - 1] != "CHOH":
+            raise NameNotRecognisedError(name, f"O-methyl at C-{k} needs a secondary hydroxyl")
+        groups[k - 1] = "CHOMe"
+    stereo = [i for i, g in enumerate(groups) if g in ("CHOH", "CHNH2", "CHOMe")]
+    words = [w for w in m["prefixes"].split("-") if w]
+    chunks = [(words[i], words[i + 1]) for i in range(0, len(words), 2)]
+    patterns = []
+    for series, word in reversed(chunks):  # cited farthest-first; rebuild from C-1
+        if word not in _PATTERN_OF:
+            close = difflib.get_close_matches(word, list(_PATTERN_OF), n=3)
+            raise NameNotRecognisedError(name, f"unknown configurational prefix {word!r}", tuple(close))
+        pat = _PATTERN_OF[word]
+        if series == "L":
+            pat = "".join("r" if c == "l" else "l" for c in pat)
+        patterns.append(pat)
+    full = "".join(patterns)
+    if len(full) != len(stereo):
+        raise NameNotRecognisedError(name, f"the prefixes describe {len(full)} centres but the chain has {len(stereo)}")
+    for c in patterns[:-1]:
+        if len(c) != 4:
+            raise NameNotRecognisedError(name, "only the prefix farthest from C-1 may cover fewer than 4 centres")
+    sides: list[str | None] = [None] * n
+    for i, c in zip(stereo, full, strict=True):
+        sides[i] = RIGHT if c == "r" else LEFT
+    return Chain(tuple(groups), tuple(sides))
+
+
+def _normalise(text: str) -> str:
+    t = text.strip().replace("\u2013", "-").replace("\u03b1", "alpha").replace("\u03b2", "beta")
+    t = re.sub(r"\s+", " ", t)
+    if len(t) > 2 and t[1] == "-" and t[0] in "dlDL":
+        t = t[0].upper() + t[1:]
+    return t
+
+
+@lru_cache(maxsize=1)
+def _trivial_lookup() -> dict[str, str]:
+    """lower-case trivial name (with D-/L-) -> systematic name."""
+    out = {}
+    for trivial, systematic in TRIVIAL.items():
+        out[_with_series(trivial, "D").lower()] = systematic
+        out[_with_series(trivial, "L").lower()] = systematic_name(from_systematic(systematic).mirror())
+    for trivial, systematic in _ONE_SERIES.items():
+        out[trivial] = systematic
+    for trivial, systematic in _ACHIRAL.items():
+        out[trivial] = systematic
+    return out
+
+
+def _pretty(key: str) -> str:
+    return re.sub(r"(^|-)([dl])-", lambda m: m[1] + m[2].upper() + "-", key)
+
+
+def known_names() -> list[str]:
+    """Every trivial name the parser accepts, D and L forms."""
+    return sorted(_pretty(k) for k in _trivial_lookup())
+
+
+def from_name(text: str) -> Chain:
+    """The chain a trivial or systematic name stands for.
+
+    Raises :class:`NameNotRecognisedError` with close suggestions otherwise.
+    A trivial name needs its D- or L- (``glucose`` alone is ambiguous).
+    """
+    t = _normalise(text)
+    lookup = _trivial_lookup()
+    key = t.lower()
+    if key in lookup:
+        return from_systematic(lookup[key])
+    bare = {k.replace("{s}-", ""): k for k in TRIVIAL}
+    if key in bare:
+        raise NameNotRecognisedError(
+            text, "a trivial name needs its series", (_with_series(bare[key], "D"), _with_series(bare[key], "L"))
+        )
+    try:
+        return from_systematic(t)
+    except NameNotRecognisedError as err:
+        if _SYSTEMATIC.match(t):
+            raise
+        close = [_pretty(c) for c in difflib.get_close_matches(key, list(lookup), n=3, cutoff=0.6)]
+        raise NameNotRecognisedError(text, "neither a known trivial name nor a systematic name", tuple(close)) from err
