@@ -60,6 +60,33 @@ def _cmd_catalogue(args: argparse.Namespace) -> int:
     return EXIT_OK
 
 
+# ----------------------------------------------------------------- solve / validate
+def _cmd_solve(args: argparse.Namespace) -> int:
+    from workbench.evidence.engine import solve
+    from workbench.evidence.project import load_project
+    from workbench.report_text import solution_json, solution_text
+
+    project = load_project(args.project)
+    solution = solve(project, disabled=tuple(args.without or ()))
+    if args.json:
+        _print_json(solution_json(solution))
+    else:
+        print(solution_text(solution))
+    return EXIT_CONTRADICTION if solution.contradictory else EXIT_OK
+
+
+def _cmd_validate(args: argparse.Namespace) -> int:
+    from workbench.chem.catalogue import catalogue
+    from workbench.evidence.project import load_project
+
+    project = load_project(args.project)
+    print(f"{args.project}: valid stereosieve project '{project.title}'")
+    for u in project.unknowns:
+        print(f"  unknown {u.id}: {len(catalogue(u.scope))} candidates in scope {u.scope.to_dict()}")
+    print(f"  {len(project.observations)} observation(s)")
+    return EXIT_OK
+
+
 # ----------------------------------------------------------------- demo
 def _cmd_demo(args: argparse.Namespace) -> int:
     from workbench.chem.catalogue import DEFAULT_SCOPE, Scope, catalogue
@@ -73,7 +100,13 @@ def _cmd_demo(args: argparse.Namespace) -> int:
 
 # ----------------------------------------------------------------- registry
 Handler = Callable[[argparse.Namespace], int]
-_HANDLERS: dict[str, Handler] = {"predict": _cmd_predict, "catalogue": _cmd_catalogue, "demo": _cmd_demo}
+_HANDLERS: dict[str, Handler] = {
+    "predict": _cmd_predict,
+    "catalogue": _cmd_catalogue,
+    "demo": _cmd_demo,
+    "solve": _cmd_solve,
+    "validate": _cmd_validate,
+}
 
 
 def build_parser() -> argparse.ArgumentParser:
@@ -92,6 +125,12 @@ def build_parser() -> argparse.ArgumentParser:
     c.add_argument("--series", nargs="+", default=["D", "L"], choices=["D", "L"])
     c.add_argument("--modifications", nargs="+", default=["none"])
     c.add_argument("--json", action="store_true")
+    s = sub.add_parser("solve", help="narrow every unknown of a project; show survivors, trail and conflicts")
+    s.add_argument("project", help="project file (JSON)")
+    s.add_argument("--json", action="store_true", help="print JSON (Contract 2)")
+    s.add_argument("--without", nargs="+", metavar="ID", help="switch these observations off (what-if)")
+    v = sub.add_parser("validate", help="check a project file and report every problem")
+    v.add_argument("project", help="project file (JSON)")
     d = sub.add_parser("demo", help="run the bundled demo project headless and print the narrowing")
     d.add_argument("--json", action="store_true")
     return parser

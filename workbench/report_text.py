@@ -59,3 +59,103 @@ def _short(value: object) -> str:
     if isinstance(value, dict):
         return ", ".join(f"{k}={_short(v) if isinstance(v, dict) else v}" for k, v in value.items())
     return str(value)
+
+
+# ------------------------------------------------------------------ solutions
+def survivor_json(chain: Chain) -> dict:
+    """One survivor as Contract 2 lists it."""
+    return {
+        "name": display_name(chain),
+        "systematic_name": systematic_name(chain),
+        "smiles": to_smiles(chain),
+        "inchikey": to_inchikey(chain),
+    }
+
+
+def solution_json(solution) -> dict:
+    """``solve --json`` (Contract 2): unknowns, trail, conflicts, plus relief and flags."""
+    unknowns = {}
+    for uid in solution.project.unknown_ids:
+        survivors = solution.survivors[uid]
+        unknowns[uid] = {
+            "label": solution.project.unknown(uid).label,
+            "scope_count": solution.scope_counts[uid],
+            "count": len(survivors),
+            "survivors": [survivor_json(c) for c in survivors],
+            "flags": {display_name(c): list(v) for c, v in solution.flags.get(uid, {}).items()},
+        }
+    trail = []
+    for step in solution.trail:
+        trail.append(
+            {
+                "observation": step.observation,
+                "status": step.status,
+                "eliminated": {u: [display_name(c) for c in cs] for u, cs in step.eliminated.items()},
+                "reasons": {u: {display_name(c): r for c, r in rs.items()} for u, rs in step.reasons.items()},
+                "counts": step.counts,
+            }
+        )
+    relief = {
+        oid: {u: [display_name(c) for c in cs] for u, cs in by_u.items()} for oid, by_u in solution.relief.items()
+    }
+    return {
+        "title": solution.project.title,
+        "unknowns": unknowns,
+        "trail": trail,
+        "conflicts": [list(c) for c in solution.conflicts],
+        "without": relief,
+        "disabled": list(solution.disabled),
+    }
+
+
+def _names(chains, limit: int = 12) -> str:
+    names = [display_name(c) for c in chains]
+    if len(names) > limit:
+        return ", ".join(names[:limit]) + f", ... (+{len(names) - limit} more)"
+    return ", ".join(names)
+
+
+def solution_text(solution) -> str:
+    """A readable table per unknown with the trail, for the terminal."""
+    project = solution.project
+    ids = project.unknown_ids
+    lines = [f"Project: {project.title or '(untitled)'}", ""]
+    header = f"{'step':<8}{'status':<13}" + "".join(f"{u:>8}" for u in ids)
+    lines.append("Narrowing (candidates left per unknown)")
+    lines.append(header)
+    lines.append(f"{'scope':<8}{'':<13}" + "".join(f"{solution.scope_counts[u]:>8}" for u in ids))
+    for step in solution.trail:
+        lines.append(f"{step.observation:<8}{step.status:<13}" + "".join(f"{step.counts[u]:>8}" for u in ids))
+    lines.append("")
+    for step in solution.trail:
+        for uid, gone in step.eliminated.items():
+            lines.append(f"{step.observation} removed from {uid}: {_names(gone)}")
+            reasons = step.reasons.get(uid, {})
+            for chain in gone[:4]:
+                if reasons.get(chain):
+                    lines.append(f"    {display_name(chain)}: {reasons[chain]}")
+            if len(gone) > 4:
+                lines.append(f"    ... and {len(gone) - 4} more for the same reason")
+    lines.append("")
+    for uid in ids:
+        u = project.unknown(uid)
+        surv = solution.survivors[uid]
+        label = f" ({u.label})" if u.label else ""
+        lines.append(f"{uid}{label}: {len(surv)} of {solution.scope_counts[uid]} candidates remain")
+        for chain in surv[:20]:
+            lines.append(f"    {display_name(chain):<36} {systematic_name(chain)}")
+        if len(surv) > 20:
+            lines.append(f"    ... (+{len(surv) - 20} more)")
+        for chain, notes in solution.flags.get(uid, {}).items():
+            for note in notes:
+                lines.append(f"    flag {display_name(chain)}: {note}")
+    if solution.conflicts:
+        lines.append("")
+        lines.append("The evidence is contradictory. Minimal sets of observations that cannot all hold:")
+        for c in solution.conflicts:
+            described = "; ".join(project.observation(o).describe() for o in c)
+            lines.append(f"  {{{', '.join(c)}}}  {described}")
+        for oid, by_u in solution.relief.items():
+            summary = ", ".join(f"{u}: {len(cs)} ({_names(cs, 3)})" for u, cs in by_u.items())
+            lines.append(f"  without {oid}: {summary}")
+    return "\n".join(lines)

@@ -1,0 +1,335 @@
+"""The engine: narrow every unknown of a project jointly, with a trail and conflicts.
+
+Unary observations filter each unknown's catalogue; relational observations
+become binary constraints (:mod:`workbench.evidence.network`). Survivors are
+exactly the candidates that occur in at least one assignment of all unknowns
+satisfying every observation. The trail replays the observations in order and
+records what each one eliminated; when the evidence is contradictory, minimal
+conflicting sets of observations are found by deletion (each set is a
+minimal unsatisfiable subset: drop any one member and the rest can hold).
+"""
+
+from __future__ import annotations
+
+import itertools
+import logging
+from collections.abc import Iterable
+from dataclasses import dataclass, field
+from functools import cache
+
+from workbench.chem import reactions
+from workbench.chem.catalogue import catalogue
+from workbench.chem.chain import Chain
+from workbench.chem.names import display_name
+from workbench.evidence.network import Binary, find_solution, supported_domains
+from workbench.evidence.observations import Observation
+from workbench.evidence.outcomes import fits, product_key
+from workbench.evidence.project import Project
+
+__all__ = ["TrailStep", "Solution", "solve", "constraints_of", "unary_domains", "is_consistent"]
+
+log = logging.getLogger(__name__)
+_MAX_CONFLICT_SETS = 6
+
+
+@dataclass(frozen=True)
+class TrailStep:
+    """What one observation did, in order.
+
+    ``status`` is ``applied``, ``disabled`` (switched off for a what-if) or
+    ``contradicts`` (it cannot hold with the observations before it, so it
+    was set aside for the rest of the replay). ``counts`` are the survivors of
+    every unknown after this step.
+    """
+
+    observation: str
+    status: str
+    eliminated: dict[str, tuple[Chain, ...]]
+    counts: dict[str, int]
+    reasons: dict[str, dict[Chain, str]] = field(default_factory=dict)
+
+
+@dataclass(frozen=True)
+class Solution:
+    """The outcome of :func:`solve`."""
+
+    project: Project
+    scope_counts: dict[str, int]
+    survivors: dict[str, tuple[Chain, ...]]
+    trail: tuple[TrailStep, ...]
+    conflicts: tuple[tuple[str, ...], ...]
+    relief: dict[str, dict[str, tuple[Chain, ...]]]
+    flags: dict[str, dict[Chain, tuple[str, ...]]]
+    disabled: tuple[str, ...] = ()
+
+    @property
+    def contradictory(self) -> bool:
+        """True when no assignment satisfies all the (enabled) evidence."""
+        return bool(self.conflicts)
+
+    def eliminated_by(self, uid: str) -> dict[Chain, str]:
+        """For each eliminated candidate of ``uid``, the id of the observation that removed it."""
+        out: dict[Chain, str] = {}
+        for step in self.trail:
+            for chain in step.eliminated.get(uid, ()):
+                out.setdefault(chain, step.observation)
+        return out
+
+    def reason(self, uid: str, chain: Chain) -> str:
+        """Why ``chain`` was eliminated from ``uid`` (empty if it survives)."""
+        for step in self.trail:
+            if chain in step.eliminated.get(uid, ()):
+                text = step.reasons.get(uid, {}).get(chain, "")
+                return f"{step.observation}: {text}" if text else step.observation
+        return ""
+
+
+# ------------------------------------------------------------------ building
+def _ref(project: Project, member: str) -> tuple[str, Chain | None]:
+    """Variable name for a member: the unknown's id, or ``=name`` for a known sugar."""
+    target = project.member(member)
+    if isinstance(target, str):
+        return target, None
+    return f"={member}", target
+
+
+@cache
+def _shortened(chain: Chain) -> Chain | None:
+    out = reactions.shorten(chain)
+    return out or None
+
+
+def _extension_parent(chain: Chain) -> Chain | None:
+    """The aldose that Kiliani-Fischer extension turns into ``chain`` (if any)."""
+    if chain.carbonyl != "aldose" or chain.groups[1] != "CHOH" or chain.carbons < 4:
+        return None
+    return _shortened(chain)
+
+
+def _product_test(reaction: str, relation: str):
+    def test(x: Chain, y: Chain) -> bool:
+        kx, ky = product_key(reaction, x), product_key(reaction, y)
+        if kx is None or ky is None:
+            return False
+        rel = reactions.relation_of_sets(kx, ky)
+        if relation == "different":
+            return rel != "identical"
+        return rel == relation
+
+    return test
+
+
+def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], dict[str, Chain]]:
+    """Binary constraints of a relational observation, and the known sugars it names."""
+    fixed: dict[str, Chain] = {}
+
+    def ref(member: str) -> str:
+        name, chain = _ref(project, member)
+        if chain is not None:
+            fixed[name] = chain
+        return name
+
+    out: list[Binary] = []
+    kind = obs.KIND
+    if kind == "same_product":
+        names = [ref(m) for m in obs.members]
+        test = _product_test(obs.reaction, obs.relation)
+        tokens = None
+        if obs.relation == "identical":
+
+            def tokens(c: Chain, r: str = obs.reaction):
+                return product_key(r, c) or ()
+
+        for a, b in itertools.combinations(names, 2):
+            out.append(Binary(a, b, test, obs.id, tokens, tokens))
+    elif kind == "different":
+        names = [ref(m) for m in obs.members]
+        for a, b in itertools.combinations(names, 2):
+            out.append(Binary(a, b, lambda x, y: x != y, obs.id))
+    elif kind == "chain_extension":
+        sub = ref(obs.substrate)
+        prods = [ref(p) for p in obs.products]
+        for p in prods:
+            out.append(
+                Binary(
+                    sub,
+                    p,
+                    lambda s, q: s.carbonyl == "aldose" and _extension_parent(q) == s,
+                    obs.id,
+                    lambda s: (s,),
+                    lambda q: (x for x in (_extension_parent(q),) if x is not None),
+                )
+            )
+        if len(prods) == 2:
+            out.append(Binary(prods[0], prods[1], lambda x, y: x != y, obs.id))
+    elif kind == "chain_shortening":
+        sub, prod = ref(obs.substrate), ref(obs.product)
+        out.append(
+            Binary(
+                sub,
+                prod,
+                lambda s, q: _shortened(s) == q,
+                obs.id,
+                lambda s: (x for x in (_shortened(s),) if x is not None),
+                lambda q: (q,),
+            )
+        )
+    else:
+        raise ValueError(f"{kind} is not relational")
+    return out, fixed
+
+
+def _scope_domains(project: Project) -> dict[str, list[Chain]]:
+    return {u.id: list(catalogue(u.scope)) for u in project.unknowns}
+
+
+def unary_domains(project: Project, observations: Iterable[Observation]) -> dict[str, list[Chain]]:
+    """Each unknown's candidates that fit every unary observation given."""
+    domains = _scope_domains(project)
+    for obs in observations:
+        if obs.UNARY:
+            domains[obs.unknown] = [c for c in domains[obs.unknown] if fits(obs, c).fits]
+    return domains
+
+
+def _network(project: Project, observations: Iterable[Observation]):
+    obs_list = list(observations)
+    domains = unary_domains(project, obs_list)
+    constraints: list[Binary] = []
+    for obs in obs_list:
+        if not obs.UNARY:
+            cons, fixed = constraints_of(project, obs)
+            constraints += cons
+            for name, chain in fixed.items():
+                domains[name] = [chain]
+    return domains, constraints
+
+
+def _survivors(project: Project, observations: Iterable[Observation]) -> dict[str, list[Chain]] | None:
+    domains, constraints = _network(project, observations)
+    if any(not d for d in domains.values()):
+        return None
+    out = supported_domains(domains, constraints)
+    if out is None:
+        return None
+    return {k: v for k, v in out.items() if not k.startswith("=")}
+
+
+def is_consistent(project: Project, observations: Iterable[Observation]) -> bool:
+    """True when some assignment of all unknowns satisfies every observation given."""
+    domains, constraints = _network(project, observations)
+    if any(not d for d in domains.values()):
+        return False
+    return find_solution(domains, constraints) is not None
+
+
+# ------------------------------------------------------------------ conflicts
+def _minimal_conflict(project: Project, observations: list[Observation]) -> list[Observation]:
+    """Deletion-based minimal unsatisfiable subset of ``observations`` (which must be inconsistent)."""
+    core = list(observations)
+    i = 0
+    while i < len(core):
+        trial = core[:i] + core[i + 1 :]
+        if not is_consistent(project, trial):
+            core = trial
+        else:
+            i += 1
+    return core
+
+
+def _conflict_sets(project: Project, observations: list[Observation]) -> list[tuple[str, ...]]:
+    """Several minimal conflicting sets (each a minimal unsatisfiable subset)."""
+    found: list[tuple[str, ...]] = []
+    first = _minimal_conflict(project, observations)
+    found.append(tuple(o.id for o in first))
+    frontier = [[o.id] for o in first]
+    seen_blocks: set[frozenset[str]] = set()
+    while frontier and len(found) < _MAX_CONFLICT_SETS:
+        block = frozenset(frontier.pop(0))
+        if block in seen_blocks or len(block) > 3:
+            continue
+        seen_blocks.add(block)
+        rest = [o for o in observations if o.id not in block]
+        if is_consistent(project, rest):
+            continue
+        core = tuple(o.id for o in _minimal_conflict(project, rest))
+        if core not in found:
+            found.append(core)
+        frontier += [sorted(block | {oid}) for oid in core]
+    return found
+
+
+# ------------------------------------------------------------------ solving
+def _explain_relational(obs: Observation, uid: str) -> str:
+    others = [m for m in obs.references() if m != uid]
+    return f"no choice of {', '.join(others)} satisfies {obs.KIND} together with the evidence before it"
+
+
+def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
+    """Survivors of every unknown, the elimination trail and any conflicts."""
+    off = tuple(disabled)
+    active = [o for o in project.observations if o.id not in off]
+    scope = _scope_domains(project)
+    current: dict[str, list[Chain]] = {k: list(v) for k, v in scope.items()}
+    applied: list[Observation] = []
+    trail: list[TrailStep] = []
+    flags: dict[str, dict[Chain, list[str]]] = {u: {} for u in project.unknown_ids}
+    for obs in project.observations:
+        if obs.id in off:
+            trail.append(TrailStep(obs.id, "disabled", {}, {u: len(current[u]) for u in current}))
+            continue
+        trial = _survivors(project, applied + [obs])
+        if trial is None:
+            trail.append(TrailStep(obs.id, "contradicts", {}, {u: len(current[u]) for u in current}))
+            continue
+        eliminated: dict[str, tuple[Chain, ...]] = {}
+        reasons: dict[str, dict[Chain, str]] = {}
+        for uid in project.unknown_ids:
+            keep = set(trial[uid])
+            gone = tuple(c for c in current[uid] if c not in keep)
+            if gone:
+                eliminated[uid] = gone
+                reasons[uid] = {}
+                for c in gone:
+                    if obs.UNARY and obs.unknown == uid:
+                        verdict = fits(obs, c)
+                        reasons[uid][c] = verdict.reason if not verdict.fits else "no partner survives"
+                    elif obs.UNARY:
+                        reasons[uid][c] = f"its partners in a relation were removed by {obs.id}"
+                    else:
+                        reasons[uid][c] = _explain_relational(obs, uid)
+        if obs.UNARY:
+            for c in trial[obs.unknown]:
+                verdict = fits(obs, c)
+                if verdict.flagged:
+                    flags[obs.unknown].setdefault(c, []).append(f"{obs.id}: {verdict.reason}")
+        applied.append(obs)
+        current = {k: list(v) for k, v in trial.items()}
+        trail.append(TrailStep(obs.id, "applied", eliminated, {u: len(current[u]) for u in current}, reasons))
+    conflicts: list[tuple[str, ...]] = []
+    relief: dict[str, dict[str, tuple[Chain, ...]]] = {}
+    clean = all(step.status != "contradicts" for step in trail)
+    final = current if clean else _survivors(project, active)
+    if final is None:
+        conflicts = _conflict_sets(project, active)
+        for oid in sorted({o for c in conflicts for o in c}, key=[o.id for o in active].index):
+            rest = [o for o in active if o.id != oid]
+            alt = _survivors(project, rest)
+            if alt is not None:
+                relief[oid] = {u: tuple(alt[u]) for u in project.unknown_ids}
+        final = {u: [] for u in project.unknown_ids}
+    return Solution(
+        project=project,
+        scope_counts={u: len(scope[u]) for u in project.unknown_ids},
+        survivors={u: tuple(final[u]) for u in project.unknown_ids},
+        trail=tuple(trail),
+        conflicts=tuple(conflicts),
+        relief=relief,
+        flags={u: {c: tuple(v) for c, v in d.items() if c in set(final[u])} for u, d in flags.items()},
+        disabled=off,
+    )
+
+
+def describe_survivor(chain: Chain) -> str:
+    """Name used in trails and tables."""
+    return display_name(chain)

@@ -1,0 +1,390 @@
+"""Observation kinds: one validated, immutable value object per kind of evidence.
+
+Each kind declares its fields once as :class:`FieldSpec` rows; validation,
+the project-file form (:meth:`Observation.to_dict`) and the notebook's entry
+forms are all generated from those rows. The table of kinds and fields is
+Contract 1 of DESIGN.md; kinds added here extend it, never rename it.
+
+Units: periodate amounts in mol per mol substrate; rotations in
+deg mL g-1 dm-1 ([alpha]D, water, about 20 C); couplings in Hz.
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+from collections.abc import Mapping
+from dataclasses import dataclass, field, fields
+from typing import Any, ClassVar
+
+from workbench.errors import ObservationError
+
+__all__ = [
+    "FieldSpec",
+    "Observation",
+    "OBSERVATION_TYPES",
+    "observation_from_dict",
+    "unary_kinds",
+    "relational_kinds",
+]
+
+
+@dataclass(frozen=True)
+class FieldSpec:
+    """One field of an observation kind.
+
+    ``type`` is one of: ``unknown`` (an unknown's id), ``member`` (an unknown's
+    id or a known sugar's name/SMILES), ``members`` (a list of those),
+    ``choice``, ``bool``, ``int``, ``float``, ``text``.
+    """
+
+    name: str
+    type: str
+    doc: str
+    choices: tuple[str, ...] = ()
+    required: bool = True
+    default: Any = None
+    unit: str = ""
+    minimum: float | None = None
+    maximum: float | None = None
+    min_items: int = 0
+    max_items: int = 0
+
+
+_COMMON = ("id", "kind", "note", "recorded", "by")
+
+
+@dataclass(frozen=True)
+class Observation:
+    """Base of every kind: an id, optional note, date (ISO 8601) and author."""
+
+    id: str
+    note: str = field(default="", kw_only=True)
+    recorded: str = field(default="", kw_only=True)
+    by: str = field(default="", kw_only=True)
+
+    KIND: ClassVar[str] = ""
+    TITLE: ClassVar[str] = ""
+    SPECS: ClassVar[tuple[FieldSpec, ...]] = ()
+    UNARY: ClassVar[bool] = True
+
+    @property
+    def kind(self) -> str:
+        """The kind word used in the project file."""
+        return self.KIND
+
+    def values(self) -> dict[str, Any]:
+        """The kind-specific fields as a dict (no id/note/recorded/by)."""
+        return {spec.name: getattr(self, spec.name) for spec in self.SPECS}
+
+    def to_dict(self) -> dict[str, Any]:
+        """Project-file form (Contract 1)."""
+        out: dict[str, Any] = {"id": self.id, "kind": self.KIND}
+        for spec in self.SPECS:
+            value = getattr(self, spec.name)
+            if value is None and not spec.required:
+                continue
+            out[spec.name] = list(value) if isinstance(value, tuple) else value
+        for key in ("note", "recorded", "by"):
+            if getattr(self, key):
+                out[key] = getattr(self, key)
+        return out
+
+    def references(self) -> tuple[str, ...]:
+        """Every unknown id or sugar name this observation refers to."""
+        out: list[str] = []
+        for spec in self.SPECS:
+            value = getattr(self, spec.name)
+            if spec.type in ("unknown", "member") and value:
+                out.append(value)
+            elif spec.type == "members":
+                out.extend(value)
+        return tuple(out)
+
+    def describe(self) -> str:
+        """One line a chemist reads, e.g. ``E3 aldaric_acid U1: optically_active=False``."""
+        vals = ", ".join(f"{k}={v}" for k, v in self.values().items() if v is not None)
+        return f"{self.id} {self.KIND}: {vals}"
+
+
+def _kind(kind: str, title: str, specs: tuple[FieldSpec, ...], unary: bool = True) -> type[Observation]:
+    """Make one frozen dataclass per kind from its field specs."""
+    annotations: dict[str, Any] = {}
+    namespace: dict[str, Any] = {
+        "KIND": kind,
+        "TITLE": title,
+        "SPECS": specs,
+        "UNARY": unary,
+        "__doc__": f"Observation ``{kind}``: {title}.",
+        "__module__": __name__,
+    }
+    for spec in specs:
+        annotations[spec.name] = Any
+        namespace[spec.name] = field(default=spec.default, kw_only=True)
+    namespace["__annotations__"] = annotations
+    name = "".join(part.title() for part in kind.split("_")) + "Observation"
+    cls = type(name, (Observation,), namespace)
+    return dataclass(frozen=True)(cls)
+
+
+_UNKNOWN = FieldSpec("unknown", "unknown", "the unknown this result belongs to")
+_TOL_MOL = FieldSpec(
+    "tolerance", "float", "how far a measured amount may stray", required=False, default=0.2, unit="mol/mol", minimum=0
+)
+
+OBSERVATION_TYPES: dict[str, type[Observation]] = {
+    cls.KIND: cls
+    for cls in (
+        _kind(
+            "carbon_count",
+            "number of carbons in the chain",
+            (_UNKNOWN, FieldSpec("value", "int", "carbons", minimum=3, maximum=9)),
+        ),
+        _kind(
+            "series",
+            "configuration at the highest-numbered stereocentre",
+            (_UNKNOWN, FieldSpec("value", "choice", "D or L", choices=("D", "L"))),
+        ),
+        _kind(
+            "bromine_water",
+            "bromine water oxidises aldoses to aldonic acids, not ketoses",
+            (_UNKNOWN, FieldSpec("result", "choice", "what happened", choices=("oxidised", "unchanged"))),
+        ),
+        _kind(
+            "reducing_test",
+            "Fehling, Benedict or Tollens test",
+            (_UNKNOWN, FieldSpec("result", "choice", "colour or mirror", choices=("positive", "negative"))),
+        ),
+        _kind(
+            "ketose_test",
+            "resorcinol/HCl (Seliwanoff-type) test: fast red colour for ketoses",
+            (_UNKNOWN, FieldSpec("result", "choice", "fast colour or not", choices=("positive", "negative"))),
+        ),
+        _kind(
+            "aldaric_acid",
+            "nitric-acid oxidation product: optically active or not",
+            (_UNKNOWN, FieldSpec("optically_active", "bool", "does the diacid rotate plane-polarised light")),
+        ),
+        _kind(
+            "alditol",
+            "borohydride reduction product: optically active or not (a ketose: active if either alditol is)",
+            (_UNKNOWN, FieldSpec("optically_active", "bool", "does the alditol rotate plane-polarised light")),
+        ),
+        _kind(
+            "molecular_formula",
+            "molecular formula of the free sugar (e.g. from HRMS)",
+            (_UNKNOWN, FieldSpec("value", "text", "Hill formula such as C6H12O6")),
+        ),
+        _kind(
+            "periodate",
+            "periodate uptake and products per mol substrate",
+            (
+                _UNKNOWN,
+                FieldSpec(
+                    "substrate",
+                    "choice",
+                    "what was oxidised",
+                    choices=("free", "alditol", "methyl_pyranoside", "methyl_furanoside"),
+                ),
+                FieldSpec("periodate", "float", "IO4- consumed", unit="mol/mol", minimum=0),
+                FieldSpec("formic_acid", "float", "HCOOH formed", unit="mol/mol", minimum=0),
+                FieldSpec("formaldehyde", "float", "HCHO formed", unit="mol/mol", minimum=0),
+                FieldSpec("co2", "float", "CO2 formed", required=False, unit="mol/mol", minimum=0),
+                _TOL_MOL,
+            ),
+        ),
+        _kind(
+            "specific_rotation",
+            "equilibrium [alpha]D in water against published values",
+            (
+                _UNKNOWN,
+                FieldSpec("value", "float", "equilibrium specific rotation", unit="deg mL g-1 dm-1"),
+                FieldSpec(
+                    "tolerance", "float", "allowed deviation", required=False, default=5.0, unit="deg", minimum=0
+                ),
+            ),
+        ),
+        _kind(
+            "anomer_ratio",
+            "alpha fraction of the pyranose anomers at equilibrium (NMR integration or polarimetry)",
+            (
+                _UNKNOWN,
+                FieldSpec("alpha_fraction", "float", "alpha / (alpha + beta) pyranose", minimum=0, maximum=1),
+                FieldSpec("tolerance", "float", "allowed deviation", required=False, default=0.1, minimum=0),
+            ),
+        ),
+        _kind(
+            "coupling_constant",
+            "vicinal 3J(H,H) of one ring form",
+            (
+                _UNKNOWN,
+                FieldSpec(
+                    "form",
+                    "choice",
+                    "ring form measured",
+                    choices=("alpha_pyranose", "beta_pyranose", "alpha_furanose", "beta_furanose"),
+                ),
+                FieldSpec("pair", "text", "proton pair such as H1-H2"),
+                FieldSpec("value", "float", "coupling constant", unit="Hz", minimum=0, maximum=20),
+                FieldSpec("tolerance", "float", "allowed deviation", required=False, default=1.5, unit="Hz", minimum=0),
+            ),
+        ),
+        _kind(
+            "same_product",
+            "relation between the products of several compounds",
+            (
+                FieldSpec(
+                    "reaction",
+                    "choice",
+                    "which product",
+                    choices=("osazone", "aldaric_acid", "alditol", "aldonic_acid"),
+                ),
+                FieldSpec("members", "members", "unknown ids or known sugars", min_items=2, max_items=8),
+                FieldSpec(
+                    "relation", "choice", "how the products relate", choices=("identical", "enantiomeric", "different")
+                ),
+            ),
+            unary=False,
+        ),
+        _kind(
+            "different",
+            "the compounds are not the same compound",
+            (FieldSpec("members", "members", "unknown ids or known sugars", min_items=2, max_items=8),),
+            unary=False,
+        ),
+        _kind(
+            "chain_extension",
+            "products are the C-2 epimers of the substrate extended by one carbon",
+            (
+                FieldSpec("method", "choice", "route", choices=("kiliani_fischer", "nitromethane")),
+                FieldSpec("substrate", "member", "the aldose extended"),
+                FieldSpec("products", "members", "one or both products", min_items=1, max_items=2),
+            ),
+            unary=False,
+        ),
+        _kind(
+            "chain_shortening",
+            "product is the aldose one carbon shorter",
+            (
+                FieldSpec("method", "choice", "route", choices=("ruff", "wohl")),
+                FieldSpec("substrate", "member", "the aldose degraded"),
+                FieldSpec("product", "member", "the shorter aldose"),
+            ),
+            unary=False,
+        ),
+    )
+}
+
+
+def unary_kinds() -> tuple[str, ...]:
+    """Kinds that concern one unknown."""
+    return tuple(k for k, c in OBSERVATION_TYPES.items() if c.UNARY)
+
+
+def relational_kinds() -> tuple[str, ...]:
+    """Kinds that relate several compounds."""
+    return tuple(k for k, c in OBSERVATION_TYPES.items() if not c.UNARY)
+
+
+def _check(spec: FieldSpec, value: Any, oid: str | None) -> Any:
+    """Validated, normalised value of one field, or raise ObservationError."""
+
+    def fail(problem: str) -> ObservationError:
+        return ObservationError(oid, spec.name, problem)
+
+    if spec.type in ("unknown", "member", "text"):
+        if not isinstance(value, str) or not value.strip():
+            raise fail(f"expected a non-empty text, got {value!r}")
+        return value.strip()
+    if spec.type == "choice":
+        if value not in spec.choices:
+            raise fail(f"{value!r} is not one of {', '.join(spec.choices)}")
+        return value
+    if spec.type == "bool":
+        if not isinstance(value, bool):
+            raise fail(f"expected true or false, got {value!r}")
+        return value
+    if spec.type in ("int", "float"):
+        if isinstance(value, bool) or not isinstance(value, (int, float)):
+            raise fail(f"expected a number, got {value!r}")
+        if spec.type == "int" and (isinstance(value, float) and not value.is_integer()):
+            raise fail(f"expected a whole number, got {value!r}")
+        number = int(value) if spec.type == "int" else float(value)
+        if number != number or number in (float("inf"), float("-inf")):
+            raise fail("expected a finite number")
+        if spec.minimum is not None and number < spec.minimum:
+            raise fail(
+                f"{number:g} is below the smallest allowed value {spec.minimum:g}{' ' + spec.unit if spec.unit else ''}"
+            )
+        if spec.maximum is not None and number > spec.maximum:
+            raise fail(
+                f"{number:g} is above the largest allowed value {spec.maximum:g}{' ' + spec.unit if spec.unit else ''}"
+            )
+        return number
+    if spec.type == "members":
+        if not isinstance(value, list) or not all(isinstance(v, str) and v.strip() for v in value):
+            raise fail(f"expected a list of unknown ids or sugar names, got {value!r}")
+        items = tuple(v.strip() for v in value)
+        if spec.min_items and len(items) < spec.min_items:
+            raise fail(f"needs at least {spec.min_items} member(s), got {len(items)}")
+        if spec.max_items and len(items) > spec.max_items:
+            raise fail(f"takes at most {spec.max_items} member(s), got {len(items)}")
+        if len(set(items)) != len(items):
+            raise fail("lists the same member twice")
+        return items
+    raise AssertionError(spec.type)
+
+
+def observation_from_dict(data: Mapping[str, Any]) -> Observation:
+    """Build and validate one observation; raises :class:`ObservationError`.
+
+    References to unknowns and sugar names are checked by the project loader,
+    which knows the project's unknowns.
+    """
+    if not isinstance(data, Mapping):
+        raise ObservationError(None, None, f"an observation must be a JSON object, got {type(data).__name__}")
+    oid = data.get("id")
+    if not isinstance(oid, str) or not oid.strip():
+        raise ObservationError(None, "id", f"every observation needs a text id, got {oid!r}")
+    oid = oid.strip()
+    kind = data.get("kind")
+    if kind not in OBSERVATION_TYPES:
+        raise ObservationError(oid, "kind", f"unknown kind {kind!r}; known kinds: {', '.join(OBSERVATION_TYPES)}")
+    cls = OBSERVATION_TYPES[kind]
+    allowed = set(_COMMON) | {s.name for s in cls.SPECS}
+    extra = sorted(set(data) - allowed)
+    if extra:
+        raise ObservationError(
+            oid, extra[0], f"not a field of kind {kind}; its fields are {', '.join(s.name for s in cls.SPECS)}"
+        )
+    kwargs: dict[str, Any] = {}
+    for spec in cls.SPECS:
+        if spec.name not in data or data[spec.name] is None:
+            if spec.required:
+                raise ObservationError(oid, spec.name, f"missing; kind {kind} needs it ({spec.doc})")
+            kwargs[spec.name] = spec.default
+            continue
+        kwargs[spec.name] = _check(spec, data[spec.name], oid)
+    for key in ("note", "by", "recorded"):
+        value = data.get(key, "")
+        if not isinstance(value, str):
+            raise ObservationError(oid, key, f"expected text, got {value!r}")
+        kwargs[key] = value
+    if kwargs["recorded"]:
+        try:
+            _dt.datetime.fromisoformat(kwargs["recorded"].replace("Z", "+00:00"))
+        except ValueError as err:
+            raise ObservationError(oid, "recorded", f"{kwargs['recorded']!r} is not an ISO 8601 date") from err
+    if kind == "same_product" and kwargs["relation"] == "enantiomeric" and len(kwargs["members"]) != 2:
+        raise ObservationError(oid, "members", "an 'enantiomeric' relation needs exactly two members")
+    if kind == "coupling_constant":
+        pair = kwargs["pair"].upper().replace(" ", "")
+        parts = pair.split("-")
+        if len(parts) != 2 or not all(p.startswith("H") and p[1:].isdigit() for p in parts):
+            raise ObservationError(oid, "pair", f"{kwargs['pair']!r} is not a proton pair such as H1-H2")
+        kwargs["pair"] = pair
+    return cls(oid, **kwargs)
+
+
+def field_names(kind: str) -> tuple[str, ...]:
+    """The kind-specific field names, in order (for forms and tables)."""
+    return tuple(f.name for f in fields(OBSERVATION_TYPES[kind]) if f.name not in _COMMON)

@@ -1,0 +1,216 @@
+"""What each kind of experiment predicts for a candidate, and whether an observation fits.
+
+Unary kinds map a candidate to a predicted outcome (:func:`predict`); an
+observation fits a candidate when the observed value equals the prediction,
+or lies within the observation's tolerance for measured amounts
+(:func:`fits`). Relational kinds use product keys (:func:`product_key`): the
+set of canonical SMILES of the products of one reaction.
+
+Where the model has no prediction (no published rotation, no ring form to
+couple) the candidate is kept and flagged rather than eliminated.
+"""
+
+from __future__ import annotations
+
+import re
+from collections.abc import Hashable
+from dataclasses import dataclass
+from functools import cache
+from typing import Any
+
+from workbench.chem import reactions
+from workbench.chem.chain import Chain
+from workbench.chem.names import display_name
+from workbench.chem.smiles import to_smiles
+from workbench.evidence.observations import Observation
+
+__all__ = ["NO_PREDICTION", "Verdict", "predict", "fits", "product_key", "outcome_label", "formula_counts"]
+
+
+class _NoPrediction:
+    """Marker: the model predicts nothing here (the candidate is kept and flagged)."""
+
+    def __repr__(self) -> str:
+        return "NO_PREDICTION"
+
+
+NO_PREDICTION: Any = _NoPrediction()
+
+
+@dataclass(frozen=True)
+class Verdict:
+    """Whether an observation fits a candidate, and why not (or why it is only flagged)."""
+
+    fits: bool
+    reason: str = ""
+    flagged: bool = False
+
+
+# ---------------------------------------------------------------- predictions
+@cache
+def _aldaric_active(chain: Chain) -> bool | None:
+    acid = reactions.aldaric_acid(chain)
+    return reactions.is_optically_active(acid) if acid else None
+
+
+@cache
+def _alditol_active(chain: Chain) -> bool | None:
+    products = reactions.alditols(chain)
+    return reactions.is_optically_active(products) if products else None
+
+
+@cache
+def product_key(reaction: str, chain: Chain) -> frozenset[str] | None:
+    """Canonical SMILES of the products of ``reaction`` (None if none forms)."""
+    if reaction == "osazone":
+        p = reactions.osazone(chain)
+        return frozenset({to_smiles(p)}) if p else None
+    if reaction == "aldaric_acid":
+        p = reactions.aldaric_acid(chain)
+        return frozenset({to_smiles(p)}) if p else None
+    if reaction == "aldonic_acid":
+        p = reactions.aldonic_acid(chain)
+        return frozenset({to_smiles(p)}) if p else None
+    if reaction == "alditol":
+        ps = reactions.alditols(chain)
+        return frozenset(to_smiles(x) for x in ps) if ps else None
+    raise ValueError(f"unknown reaction {reaction!r}")
+
+
+def formula_counts(text: str) -> dict[str, int] | None:
+    """Element counts of a Hill formula such as ``C6H12O6``; None if unreadable."""
+    clean = text.replace(" ", "")
+    if not re.fullmatch(r"([A-Z][a-z]?\d*)+", clean):
+        return None
+    counts: dict[str, int] = {}
+    for el, num in re.findall(r"([A-Z][a-z]?)(\d*)", clean):
+        counts[el] = counts.get(el, 0) + (int(num) if num else 1)
+    return counts
+
+
+def _periodate(chain: Chain, substrate: str) -> tuple[float, float, float, float] | None:
+    from workbench.chem.periodate import periodate_counts
+
+    return periodate_counts(chain, substrate)
+
+
+def _physical(kind: str, chain: Chain, obs: Observation) -> Any:
+    try:
+        from workbench import conformers
+    except ImportError:
+        return NO_PREDICTION
+    if kind == "specific_rotation":
+        record = conformers.published_rotation(chain)
+        return NO_PREDICTION if record is None or record.equilibrium is None else float(record.equilibrium)
+    if kind == "anomer_ratio":
+        fr = conformers.anomer_fractions(chain)
+        a, b = fr.get("alpha_pyranose"), fr.get("beta_pyranose")
+        if a is None or b is None or a + b <= 0:
+            return NO_PREDICTION
+        return a / (a + b)
+    if kind == "coupling_constant":
+        per_form = conformers.ring_couplings(chain)
+        if obs.form not in per_form:
+            return None  # this ring form cannot exist for the candidate
+        value = per_form[obs.form].get(obs.pair)
+        return NO_PREDICTION if value is None else float(value)
+    raise ValueError(kind)
+
+
+def predict(obs: Observation, chain: Chain) -> Any:
+    """The predicted outcome of ``obs``'s experiment for ``chain``.
+
+    Returns a plain value (word, bool, number or tuple of numbers), None when
+    the experiment gives no such product, or :data:`NO_PREDICTION`.
+    """
+    kind = obs.KIND
+    if kind == "carbon_count":
+        return chain.carbons
+    if kind == "series":
+        return chain.series
+    if kind == "bromine_water":
+        return "oxidised" if chain.carbonyl == "aldose" else "unchanged"
+    if kind == "reducing_test":
+        return "positive" if chain.carbonyl in ("aldose", "ketose") else "negative"
+    if kind == "ketose_test":
+        return "positive" if chain.carbonyl == "ketose" else "negative"
+    if kind == "aldaric_acid":
+        return _aldaric_active(chain)
+    if kind == "alditol":
+        return _alditol_active(chain)
+    if kind == "molecular_formula":
+        return chain.formula
+    if kind == "periodate":
+        return _periodate(chain, obs.substrate)
+    if kind in ("specific_rotation", "anomer_ratio", "coupling_constant"):
+        return _physical(kind, chain, obs)
+    raise ValueError(f"{kind} is not a unary kind")
+
+
+def _observed(obs: Observation) -> Any:
+    kind = obs.KIND
+    if kind in ("carbon_count", "series", "molecular_formula", "specific_rotation", "coupling_constant"):
+        return obs.value
+    if kind in ("bromine_water", "reducing_test", "ketose_test"):
+        return obs.result
+    if kind in ("aldaric_acid", "alditol"):
+        return obs.optically_active
+    if kind == "anomer_ratio":
+        return obs.alpha_fraction
+    if kind == "periodate":
+        return (obs.periodate, obs.formic_acid, obs.formaldehyde, obs.co2)
+    raise ValueError(kind)
+
+
+def outcome_label(kind: str, value: Any) -> str:
+    """A short word for a predicted outcome, for tables and planner outcomes."""
+    if value is NO_PREDICTION:
+        return "no prediction"
+    if value is None:
+        return "no product" if kind in ("aldaric_acid", "alditol") else "does not apply"
+    if kind in ("aldaric_acid", "alditol"):
+        return "optically active" if value else "optically inactive (meso)"
+    if kind == "periodate":
+        p, f, h, c = value
+        return f"IO4- {p:g}, HCOOH {f:g}, HCHO {h:g}, CO2 {c:g}"
+    if isinstance(value, float):
+        return f"{value:.2f}"
+    return str(value)
+
+
+def fits(obs: Observation, chain: Chain) -> Verdict:
+    """Does the observation fit this candidate? With the reason when it does not."""
+    predicted = predict(obs, chain)
+    observed = _observed(obs)
+    kind = obs.KIND
+    if predicted is NO_PREDICTION:
+        return Verdict(True, f"{kind}: no prediction for {display_name(chain)}; kept", flagged=True)
+    if predicted is None:
+        reason = {
+            "aldaric_acid": "gives no aldaric acid (ketose cleaved or terminal CH3 not oxidised)",
+            "alditol": "has no carbonyl to reduce",
+            "periodate": f"cannot exist as the {getattr(obs, 'substrate', '')} substrate",
+            "coupling_constant": f"cannot form the {getattr(obs, 'form', '')} ring",
+        }.get(kind, "gives no such product")
+        return Verdict(False, f"{display_name(chain)} {reason}")
+    if kind == "molecular_formula":
+        ok = formula_counts(str(observed)) == formula_counts(predicted)
+    elif kind == "periodate":
+        tol = obs.tolerance
+        pairs = list(zip(predicted[:3], observed[:3], strict=True))
+        if observed[3] is not None:
+            pairs.append((predicted[3], observed[3]))
+        ok = all(abs(p - o) <= tol + 1e-9 for p, o in pairs)
+    elif kind in ("specific_rotation", "anomer_ratio", "coupling_constant"):
+        ok = abs(float(predicted) - float(observed)) <= obs.tolerance + 1e-9
+    else:
+        ok = predicted == observed
+    if ok:
+        return Verdict(True)
+    return Verdict(False, f"predicted {outcome_label(kind, predicted)}, observed {outcome_label(kind, observed)}")
+
+
+def outcome_key(obs: Observation, chain: Chain) -> Hashable:
+    """Hashable predicted outcome used by the planner to group candidates."""
+    value = predict(obs, chain)
+    return value if isinstance(value, Hashable) else repr(value)

@@ -1,0 +1,277 @@
+"""The project: unknowns with their scopes and the evidence ledger (Contract 1).
+
+:func:`project_from_dict` validates completely and reports every problem at
+once (one message per fault, naming the observation id or field).
+:func:`load_project` and :func:`save_project` are the only file I/O here;
+saving writes a temporary file and then replaces the target, so a failure
+never destroys what the user saved before.
+"""
+
+from __future__ import annotations
+
+import json
+import os
+import tempfile
+from collections.abc import Mapping
+from dataclasses import dataclass, field, replace
+from functools import cached_property
+from pathlib import Path
+from typing import Any
+
+from workbench.chem.catalogue import DEFAULT_SCOPE, Scope
+from workbench.chem.chain import Chain
+from workbench.chem.parse import resolve
+from workbench.errors import NameNotRecognisedError, ObservationError, ProjectError, ScopeError
+from workbench.evidence.observations import Observation, observation_from_dict
+
+__all__ = [
+    "FORMAT",
+    "VERSION",
+    "Unknown",
+    "Project",
+    "project_from_dict",
+    "load_project",
+    "save_project",
+    "dumps_project",
+]
+
+FORMAT = "stereosieve-project"
+VERSION = 1
+_TOP_KEYS = {"format", "version", "title", "unknowns", "observations"}
+
+
+@dataclass(frozen=True)
+class Unknown:
+    """A compound whose structure is sought, with the scope it may come from."""
+
+    id: str
+    label: str = ""
+    scope: Scope = DEFAULT_SCOPE
+    scope_given: bool = field(default=False, compare=False)
+
+    def to_dict(self) -> dict[str, Any]:
+        """Project-file form."""
+        out: dict[str, Any] = {"id": self.id}
+        if self.label:
+            out["label"] = self.label
+        if self.scope_given or self.scope != DEFAULT_SCOPE:
+            out["scope"] = self.scope.to_dict()
+        return out
+
+
+@dataclass(frozen=True)
+class Project:
+    """Title, unknowns and observations (in the order they were recorded)."""
+
+    title: str
+    unknowns: tuple[Unknown, ...]
+    observations: tuple[Observation, ...] = ()
+
+    @cached_property
+    def unknown_ids(self) -> tuple[str, ...]:
+        """Ids of the unknowns in file order."""
+        return tuple(u.id for u in self.unknowns)
+
+    def unknown(self, uid: str) -> Unknown:
+        """The unknown with id ``uid``."""
+        for u in self.unknowns:
+            if u.id == uid:
+                return u
+        raise KeyError(uid)
+
+    def observation(self, oid: str) -> Observation:
+        """The observation with id ``oid``."""
+        for o in self.observations:
+            if o.id == oid:
+                return o
+        raise KeyError(oid)
+
+    def member(self, text: str) -> str | Chain:
+        """An unknown's id as is, or the structure of a known sugar."""
+        if text in self.unknown_ids:
+            return text
+        return resolve(text)
+
+    def with_observation(self, obs: Observation) -> Project:
+        """A new project with ``obs`` added (or replacing the one with its id)."""
+        kept = tuple(o for o in self.observations if o.id != obs.id)
+        if len(kept) == len(self.observations):
+            return replace(self, observations=self.observations + (obs,))
+        return replace(self, observations=tuple(obs if o.id == obs.id else o for o in self.observations))
+
+    def without(self, *ids: str) -> Project:
+        """A new project without the observations ``ids``."""
+        return replace(self, observations=tuple(o for o in self.observations if o.id not in ids))
+
+    def next_id(self, prefix: str = "E") -> str:
+        """A fresh observation id such as ``E7``."""
+        used = {o.id for o in self.observations}
+        k = len(self.observations) + 1
+        while f"{prefix}{k}" in used:
+            k += 1
+        return f"{prefix}{k}"
+
+    def to_dict(self) -> dict[str, Any]:
+        """Project-file form (Contract 1)."""
+        return {
+            "format": FORMAT,
+            "version": VERSION,
+            "title": self.title,
+            "unknowns": [u.to_dict() for u in self.unknowns],
+            "observations": [o.to_dict() for o in self.observations],
+        }
+
+
+def _unknown_from(data: Any, index: int, problems: list[str]) -> Unknown | None:
+    where = f"unknowns[{index}]"
+    if not isinstance(data, Mapping):
+        problems.append(f"{where}: expected an object with 'id', got {type(data).__name__}")
+        return None
+    uid = data.get("id")
+    if not isinstance(uid, str) or not uid.strip():
+        problems.append(f"{where}: field 'id' must be a non-empty text, got {uid!r}")
+        return None
+    extra = sorted(set(data) - {"id", "label", "scope"})
+    if extra:
+        problems.append(f"unknown {uid}: field '{extra[0]}' is not known; use id, label, scope")
+    label = data.get("label", "")
+    if not isinstance(label, str):
+        problems.append(f"unknown {uid}: field 'label' must be text")
+        label = ""
+    scope = DEFAULT_SCOPE
+    if "scope" in data:
+        if not isinstance(data["scope"], Mapping):
+            problems.append(f"unknown {uid}: field 'scope' must be an object")
+        else:
+            try:
+                scope = Scope.from_dict(dict(data["scope"]))
+            except ScopeError as err:
+                problems.append(f"unknown {uid}: {err}")
+    return Unknown(uid.strip(), label, scope, scope_given="scope" in data)
+
+
+def project_from_dict(data: Any, source: str = "<project>") -> Project:
+    """Validate a parsed project file; raise :class:`ProjectError` listing every problem."""
+    problems: list[str] = []
+    if not isinstance(data, Mapping):
+        raise ProjectError(source, [f"the file must hold one JSON object, not {type(data).__name__}"])
+    fmt = data.get("format")
+    if fmt != FORMAT:
+        problems.append(f"field 'format' must be {FORMAT!r}, got {fmt!r}")
+    version = data.get("version")
+    if isinstance(version, bool) or not isinstance(version, int):
+        problems.append(f"field 'version' must be a whole number, got {version!r}")
+    elif version > VERSION:
+        problems.append(f"version {version} is newer than this stereosieve reads (up to {VERSION}); please upgrade")
+    elif version < 1:
+        problems.append(f"field 'version' must be 1 or more, got {version}")
+    for key in sorted(set(data) - _TOP_KEYS):
+        problems.append(f"top-level field '{key}' is not known; use {', '.join(sorted(_TOP_KEYS))}")
+    title = data.get("title", "")
+    if not isinstance(title, str):
+        problems.append("field 'title' must be text")
+        title = ""
+    raw_unknowns = data.get("unknowns")
+    unknowns: list[Unknown] = []
+    if not isinstance(raw_unknowns, list) or not raw_unknowns:
+        problems.append("field 'unknowns' must be a non-empty list of objects with an 'id'")
+    else:
+        for i, item in enumerate(raw_unknowns):
+            u = _unknown_from(item, i, problems)
+            if u is None:
+                continue
+            if any(v.id == u.id for v in unknowns):
+                problems.append(f"unknown id {u.id!r} is used twice")
+                continue
+            unknowns.append(u)
+    ids = {u.id for u in unknowns}
+    raw_obs = data.get("observations", [])
+    observations: list[Observation] = []
+    if not isinstance(raw_obs, list):
+        problems.append("field 'observations' must be a list")
+        raw_obs = []
+    seen: set[str] = set()
+    resolved: dict[str, str | None] = {}
+    for i, item in enumerate(raw_obs):
+        try:
+            obs = observation_from_dict(item)
+        except ObservationError as err:
+            problems.append(f"observations[{i}]: {err}" if err.observation_id is None else str(err))
+            continue
+        if obs.id in seen:
+            problems.append(f"observation {obs.id}: the id is used twice")
+            continue
+        seen.add(obs.id)
+        problems.extend(_reference_problems(obs, ids, resolved))
+        observations.append(obs)
+    if problems:
+        raise ProjectError(source, problems)
+    return Project(title, tuple(unknowns), tuple(observations))
+
+
+def _reference_problems(obs: Observation, ids: set[str], cache: dict[str, str | None]) -> list[str]:
+    """Messages for references to missing unknowns or unknown sugar names."""
+    out = []
+    for spec in obs.SPECS:
+        value = getattr(obs, spec.name)
+        if spec.type == "unknown" and value not in ids:
+            out.append(
+                f"observation {obs.id}, field '{spec.name}': no unknown has id {value!r} (ids: {', '.join(sorted(ids))})"
+            )
+        elif spec.type in ("member", "members"):
+            for member in value if spec.type == "members" else (value,):
+                if member in ids:
+                    continue
+                if member not in cache:
+                    try:
+                        resolve(member)
+                        cache[member] = None
+                    except NameNotRecognisedError as err:
+                        cache[member] = str(err)
+                if cache[member]:
+                    out.append(
+                        f"observation {obs.id}, field '{spec.name}': {member!r} is neither an unknown id "
+                        f"({', '.join(sorted(ids))}) nor a known sugar: {cache[member]}"
+                    )
+    return out
+
+
+def load_project(path: str | os.PathLike[str]) -> Project:
+    """Read and validate a project file; :class:`ProjectError` names the file and each problem."""
+    p = Path(path)
+    source = str(p)
+    try:
+        text = p.read_text(encoding="utf-8")
+    except FileNotFoundError as err:
+        raise ProjectError(source, ["no such file"]) from err
+    except UnicodeDecodeError as err:
+        raise ProjectError(source, [f"not UTF-8 text ({err.reason} at byte {err.start})"]) from err
+    except OSError as err:
+        raise ProjectError(source, [f"cannot read the file: {err.strerror}"]) from err
+    try:
+        data = json.loads(text)
+    except json.JSONDecodeError as err:
+        raise ProjectError(source, [f"malformed JSON at line {err.lineno}, column {err.colno}: {err.msg}"]) from err
+    return project_from_dict(data, source)
+
+
+def dumps_project(project: Project) -> str:
+    """The project file text (UTF-8 JSON, two-space indent)."""
+    return json.dumps(project.to_dict(), indent=2, ensure_ascii=False) + "\n"
+
+
+def save_project(project: Project, path: str | os.PathLike[str]) -> None:
+    """Write ``project`` to ``path`` atomically (temporary file, then replace)."""
+    target = Path(path)
+    text = dumps_project(project)
+    fd, tmp = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".tmp", dir=str(target.parent or "."))
+    try:
+        with os.fdopen(fd, "w", encoding="utf-8") as handle:
+            handle.write(text)
+            handle.flush()
+            os.fsync(handle.fileno())
+        os.replace(tmp, target)
+    except BaseException:
+        if os.path.exists(tmp):
+            os.unlink(tmp)
+        raise
