@@ -87,6 +87,25 @@ def _cmd_validate(args: argparse.Namespace) -> int:
     return EXIT_OK
 
 
+# ----------------------------------------------------------------- plan
+def _cmd_plan(args: argparse.Namespace) -> int:
+    from workbench.evidence.planner import plan
+    from workbench.evidence.project import load_project
+    from workbench.report_text import plan_text
+
+    project = load_project(args.project)
+    result = plan(project, unknown=args.unknown, lookahead=args.lookahead, ranking=args.rank, limit=args.top)
+    if args.json:
+        _print_json(result.to_dict())
+    else:
+        print(plan_text(result))
+    return (
+        EXIT_CONTRADICTION
+        if (not result.experiments and result.advice and "contradictory" in result.advice[0])
+        else EXIT_OK
+    )
+
+
 # ----------------------------------------------------------------- demo
 def _cmd_demo(args: argparse.Namespace) -> int:
     from workbench.chem.catalogue import DEFAULT_SCOPE, Scope, catalogue
@@ -106,6 +125,7 @@ _HANDLERS: dict[str, Handler] = {
     "demo": _cmd_demo,
     "solve": _cmd_solve,
     "validate": _cmd_validate,
+    "plan": _cmd_plan,
 }
 
 
@@ -131,6 +151,13 @@ def build_parser() -> argparse.ArgumentParser:
     s.add_argument("--without", nargs="+", metavar="ID", help="switch these observations off (what-if)")
     v = sub.add_parser("validate", help="check a project file and report every problem")
     v.add_argument("project", help="project file (JSON)")
+    pl = sub.add_parser("plan", help="rank the next experiments by how well they split the survivors")
+    pl.add_argument("project", help="project file (JSON)")
+    pl.add_argument("--unknown", metavar="ID", help="plan for this unknown only")
+    pl.add_argument("--json", action="store_true", help="print JSON (Contract 2)")
+    pl.add_argument("--lookahead", action="store_true", help="also score pairs of experiments (two steps)")
+    pl.add_argument("--rank", choices=["value", "information"], default="value", help="bits per effort, or bits alone")
+    pl.add_argument("--top", type=int, default=15, help="how many experiments to list")
     d = sub.add_parser("demo", help="run the bundled demo project headless and print the narrowing")
     d.add_argument("--json", action="store_true")
     return parser

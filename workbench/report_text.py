@@ -159,3 +159,31 @@ def solution_text(solution) -> str:
             summary = ", ".join(f"{u}: {len(cs)} ({_names(cs, 3)})" for u, cs in by_u.items())
             lines.append(f"  without {oid}: {summary}")
     return "\n".join(lines)
+
+
+# ------------------------------------------------------------------ plans
+def plan_text(plan) -> str:
+    """The planner's ranking as a readable list with outcomes and cautions."""
+    lines: list[str] = []
+    for line in plan.advice:
+        lines.append(line)
+    if plan.experiments:
+        lines.append(f"Next experiments, ranked by {'bits per effort' if plan.ranking == 'value' else 'information'}:")
+    for i, e in enumerate(plan.experiments, 1):
+        lines.append(
+            f"{i:>2}. {e.title}  [{e.information_bits:.2f} bits, about {e.expected_remaining:.1f} left, "
+            f"effort {e.cost.effort:.1f}: {e.cost.hours:g} h, {e.cost.material_mg:g} mg, hazard {e.cost.hazard}]"
+        )
+        for outcome, names in e.outcomes.items():
+            shown = ", ".join(names[:6]) + (f", ... (+{len(names) - 6})" if len(names) > 6 else "")
+            lines.append(f"      if {outcome}: {shown}")
+        for c in e.cautions:
+            lines.append(f"      ! {c}")
+    if plan.pairs:
+        lines.append("")
+        lines.append("Best pairs (two steps):")
+        for p in plan.pairs:
+            lines.append(
+                f"  {p.first.title} + {p.second.title}: {p.information_bits:.2f} bits, about {p.expected_remaining:.1f} left"
+            )
+    return "\n".join(lines)

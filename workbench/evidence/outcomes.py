@@ -88,10 +88,15 @@ def formula_counts(text: str) -> dict[str, int] | None:
     return counts
 
 
+@cache
 def _periodate(chain: Chain, substrate: str) -> tuple[float, float, float, float] | None:
-    from workbench.chem.periodate import periodate_counts
+    """(IO4-, HCOOH, HCHO, CO2) in mol per mol substrate, or None if the substrate cannot exist."""
+    from workbench.chem.periodate import periodate_oxidation
 
-    return periodate_counts(chain, substrate)
+    result = periodate_oxidation(chain, substrate)
+    if not result:
+        return None
+    return (float(result.periodate), float(result.formic_acid), float(result.formaldehyde), float(result.co2))
 
 
 def _physical(kind: str, chain: Chain, obs: Observation) -> Any:
@@ -99,6 +104,9 @@ def _physical(kind: str, chain: Chain, obs: Observation) -> Any:
         from workbench import conformers
     except ImportError:
         return NO_PREDICTION
+    needed = {"specific_rotation": "published_rotation", "anomer_ratio": "anomer_fractions"}
+    if not hasattr(conformers, needed.get(kind, "ring_couplings")):
+        return NO_PREDICTION  # the physical layer is not installed in this build
     if kind == "specific_rotation":
         record = conformers.published_rotation(chain)
         return NO_PREDICTION if record is None or record.equilibrium is None else float(record.equilibrium)

@@ -1,0 +1,399 @@
+"""The next-experiment planner: which experiment tells the survivors apart best.
+
+For every unknown that still has several survivors, every experiment the
+workbench can predict is applied to each survivor; survivors with the same
+predicted outcome form one group. With a uniform prior over the unknown's
+survivors, the information of the experiment is the Shannon entropy of that
+partition,
+
+    H = -sum_i (n_i / N) log2(n_i / N)   [bits],
+
+and the expected number of survivors afterwards is sum_i n_i^2 / N. Numeric
+outcomes (periodate amounts, rotations, couplings) are grouped by what the
+instrument can tell apart: values closer than the observation's default
+tolerance fall in one group (single linkage along the sorted values).
+
+Ranking: information per unit of effort (see :mod:`workbench.evidence.costs`),
+or by information alone. A two-step look-ahead scores pairs of experiments by
+the entropy of their joint partition.
+"""
+
+from __future__ import annotations
+
+import itertools
+import math
+from collections import defaultdict
+from collections.abc import Callable, Hashable, Sequence
+from dataclasses import dataclass
+from functools import cache
+from typing import Any
+
+from workbench.chem import reactions
+from workbench.chem.chain import Chain
+from workbench.chem.names import display_name
+from workbench.chem.parse import resolve
+from workbench.evidence.costs import Cost, cautions_of, cost_of
+from workbench.evidence.engine import Solution, solve
+from workbench.evidence.observations import OBSERVATION_TYPES
+from workbench.evidence.outcomes import NO_PREDICTION, outcome_label, predict, product_key
+from workbench.evidence.project import Project
+
+__all__ = ["Experiment", "ExperimentPair", "Plan", "plan", "entropy_bits", "REFERENCE_SUGARS"]
+
+# Sugars a carbohydrate laboratory can usually buy as references [common practice].
+REFERENCE_SUGARS: tuple[str, ...] = (
+    "D-glyceraldehyde",
+    "D-erythrose",
+    "D-threose",
+    "D-ribose",
+    "D-arabinose",
+    "L-arabinose",
+    "D-xylose",
+    "D-lyxose",
+    "2-deoxy-D-ribose",
+    "D-glucose",
+    "D-mannose",
+    "D-galactose",
+    "D-allose",
+    "D-talose",
+    "D-fructose",
+    "L-sorbose",
+    "D-tagatose",
+    "D-psicose",
+    "L-rhamnose",
+    "L-fucose",
+    "D-glucosamine",
+    "D-galactosamine",
+    "D-glucuronic acid",
+    "D-galacturonic acid",
+    "D-sedoheptulose",
+)
+
+_TOLERANCE = {"periodate": 0.2, "specific_rotation": 5.0, "anomer_ratio": 0.1, "coupling_constant": 1.5}
+_PAIRS = ("H1-H2", "H2-H3", "H3-H4", "H4-H5")
+
+
+@dataclass(frozen=True)
+class Experiment:
+    """One candidate experiment with its predicted outcomes for the survivors."""
+
+    kind: str
+    fields: dict[str, Any]
+    unknown: str
+    information_bits: float
+    expected_remaining: float
+    outcomes: dict[str, tuple[str, ...]]
+    cost: Cost
+    cautions: tuple[str, ...]
+    title: str = ""
+
+    @property
+    def value(self) -> float:
+        """Information per unit of effort (bits per effort unit)."""
+        return self.information_bits / max(self.cost.effort, 0.1)
+
+    def to_dict(self) -> dict:
+        """JSON form (Contract 2)."""
+        return {
+            "kind": self.kind,
+            **self.fields,
+            "title": self.title,
+            "information_bits": round(self.information_bits, 4),
+            "expected_remaining": round(self.expected_remaining, 3),
+            "outcomes": {k: list(v) for k, v in self.outcomes.items()},
+            "cost": self.cost.to_dict(),
+            "bits_per_effort": round(self.value, 4),
+            "cautions": list(self.cautions),
+        }
+
+
+@dataclass(frozen=True)
+class ExperimentPair:
+    """Two experiments done one after the other, scored by their joint partition."""
+
+    first: Experiment
+    second: Experiment
+    information_bits: float
+    expected_remaining: float
+
+    def to_dict(self) -> dict:
+        """JSON form."""
+        return {
+            "first": self.first.title,
+            "second": self.second.title,
+            "information_bits": round(self.information_bits, 4),
+            "expected_remaining": round(self.expected_remaining, 3),
+        }
+
+
+@dataclass(frozen=True)
+class Plan:
+    """Experiments best first, optional pairs, and advice in words."""
+
+    experiments: tuple[Experiment, ...]
+    pairs: tuple[ExperimentPair, ...] = ()
+    advice: tuple[str, ...] = ()
+    solved: tuple[str, ...] = ()
+    ranking: str = "value"
+
+    def to_dict(self) -> dict:
+        """``plan --json`` (Contract 2)."""
+        return {
+            "experiments": [e.to_dict() for e in self.experiments],
+            "pairs": [p.to_dict() for p in self.pairs],
+            "advice": list(self.advice),
+            "solved": list(self.solved),
+            "ranking": self.ranking,
+        }
+
+
+def entropy_bits(sizes: Sequence[int]) -> float:
+    """Shannon entropy (bits) of a partition with these group sizes (uniform prior)."""
+    total = sum(sizes)
+    if total == 0:
+        return 0.0
+    return -sum((n / total) * math.log2(n / total) for n in sizes if n)
+
+
+def _expected_remaining(sizes: Sequence[int]) -> float:
+    total = sum(sizes)
+    return sum(n * n for n in sizes) / total if total else 0.0
+
+
+def _cluster(values: dict[Chain, float], tolerance: float) -> dict[Chain, Hashable]:
+    """Group numeric outcomes: neighbours closer than ``tolerance`` share a group label."""
+    order = sorted(values, key=lambda c: values[c])
+    labels: dict[Chain, Hashable] = {}
+    group: list[Chain] = []
+
+    def close(g: list[Chain]) -> None:
+        lo, hi = values[g[0]], values[g[-1]]
+        label = f"{lo:.1f}" if abs(hi - lo) < 1e-9 else f"{lo:.1f} to {hi:.1f}"
+        for c in g:
+            labels[c] = label
+
+    for c in order:
+        if group and values[c] - values[group[-1]] > tolerance:
+            close(group)
+            group = []
+        group.append(c)
+    if group:
+        close(group)
+    return labels
+
+
+def _probe(kind: str, **params: Any):
+    return OBSERVATION_TYPES[kind]("?", **params)
+
+
+@cache
+def _reference(name: str) -> Chain:
+    return resolve(name)
+
+
+def _aldaric_word(chain: Chain | None) -> str:
+    if chain is None:
+        return "no product"
+    acid = reactions.aldaric_acid(chain)
+    if not acid:
+        return "no aldaric acid"
+    return "active" if reactions.is_optically_active(acid) else "meso"
+
+
+def _unary_outcomes(kind: str, params: dict, survivors: Sequence[Chain]) -> dict[Chain, Hashable]:
+    probe = _probe(kind, **params)
+    raw = {c: predict(probe, c) for c in survivors}
+    if kind in _TOLERANCE:
+        numeric = {c: v for c, v in raw.items() if isinstance(v, (int, float)) and v is not NO_PREDICTION}
+        labels: dict[Chain, Hashable] = {}
+        if kind == "periodate":
+            for c, v in raw.items():
+                labels[c] = outcome_label(kind, v)
+            return labels
+        labels.update(_cluster(numeric, _TOLERANCE[kind]))
+        for c, v in raw.items():
+            if c not in labels:
+                labels[c] = outcome_label(kind, v)
+        return labels
+    return {c: outcome_label(kind, v) for c, v in raw.items()}
+
+
+def _experiments_for(
+    uid: str, survivors: Sequence[Chain], others: Sequence[str]
+) -> list[tuple[str, dict, str, Callable]]:
+    """(kind, fields, title, outcome function) for every experiment on ``uid``."""
+    out: list[tuple[str, dict, str, Callable]] = []
+
+    def unary(kind: str, title: str, **params: Any) -> None:
+        fields = {"unknown": uid, **params}
+        out.append((kind, fields, title, lambda s, k=kind, p=fields: _unary_outcomes(k, p, s)))
+
+    unary("carbon_count", f"count the carbons of {uid}")
+    unary("molecular_formula", f"molecular formula of {uid} (HRMS)")
+    unary("series", f"D/L series of {uid} (degrade to glyceraldehyde)")
+    unary("bromine_water", f"bromine water on {uid}")
+    unary("reducing_test", f"reducing-sugar test on {uid}")
+    unary("ketose_test", f"resorcinol/HCl ketose test on {uid}")
+    unary("aldaric_acid", f"nitric acid on {uid}: is the aldaric acid optically active?")
+    unary("alditol", f"borohydride reduction of {uid}: is the alditol optically active?")
+    for substrate in ("free", "alditol", "methyl_pyranoside", "methyl_furanoside"):
+        unary("periodate", f"periodate on the {substrate.replace('_', ' ')} of {uid}", substrate=substrate)
+    unary("specific_rotation", f"equilibrium specific rotation of {uid}")
+    unary("anomer_ratio", f"alpha:beta pyranose ratio of {uid} by 1H NMR")
+    for form in ("alpha_pyranose", "beta_pyranose"):
+        for pair in _PAIRS:
+            unary("coupling_constant", f"3J({pair}) of the {form.replace('_', ' ')} of {uid}", form=form, pair=pair)
+    for reaction in ("osazone", "alditol", "aldaric_acid"):
+        for ref in REFERENCE_SUGARS:
+            ref_chain = _reference(ref)
+            ref_key = product_key(reaction, ref_chain)
+            if ref_key is None:
+                continue
+
+            def rel(s: Sequence[Chain], r: str = reaction, rk: frozenset = ref_key) -> dict[Chain, Hashable]:
+                out_map: dict[Chain, Hashable] = {}
+                for c in s:
+                    k = product_key(r, c)
+                    out_map[c] = "no product" if k is None else reactions.relation_of_sets(k, rk)
+                return out_map
+
+            fields = {"reaction": reaction, "members": [uid, ref]}
+            out.append(
+                ("same_product", fields, f"compare the {reaction.replace('_', ' ')} of {uid} with that of {ref}", rel)
+            )
+    for other in others:
+        del other  # relations between unknowns are scored jointly below
+
+    def extension(s: Sequence[Chain]) -> dict[Chain, Hashable]:
+        res: dict[Chain, Hashable] = {}
+        for c in s:
+            prods = reactions.extend(c)
+            res[c] = "+".join(sorted(_aldaric_word(p) for p in prods)) if prods else "does not apply"
+        return res
+
+    def shortening(s: Sequence[Chain]) -> dict[Chain, Hashable]:
+        res: dict[Chain, Hashable] = {}
+        for c in s:
+            prod = reactions.shorten(c)
+            res[c] = _aldaric_word(prod) if prod else "does not apply"
+        return res
+
+    out.append(
+        (
+            "chain_extension",
+            {"method": "kiliani_fischer", "substrate": uid, "then": "aldaric_acid"},
+            f"Kiliani-Fischer extension of {uid}, then nitric acid on both products",
+            extension,
+        )
+    )
+    out.append(
+        (
+            "chain_shortening",
+            {"method": "ruff", "substrate": uid, "then": "aldaric_acid"},
+            f"Ruff degradation of {uid}, then nitric acid on the product",
+            shortening,
+        )
+    )
+    return out
+
+
+def _score(kind: str, fields: dict, title: str, uid: str, labels: dict[Chain, Hashable]) -> Experiment:
+    groups: dict[str, list[str]] = defaultdict(list)
+    for chain, label in labels.items():
+        groups[str(label)].append(display_name(chain))
+    sizes = [len(v) for v in groups.values()]
+    cost = cost_of(kind, fields.get("reaction"))
+    return Experiment(
+        kind=kind,
+        fields=fields,
+        unknown=uid,
+        information_bits=entropy_bits(sizes),
+        expected_remaining=_expected_remaining(sizes),
+        outcomes={k: tuple(v) for k, v in sorted(groups.items())},
+        cost=cost,
+        cautions=tuple(cautions_of(cost)),
+        title=title,
+    )
+
+
+def _advice_for_conflicts(solution: Solution) -> list[str]:
+    counts: dict[str, int] = defaultdict(int)
+    for c in solution.conflicts:
+        for oid in c:
+            counts[oid] += 1
+    lines = ["The evidence is contradictory; no experiment is ranked until the conflict is resolved."]
+    for oid in sorted(counts, key=lambda o: (-counts[o], o)):
+        obs = solution.project.observation(oid)
+        left = solution.relief.get(oid)
+        after = ""
+        if left:
+            after = "; without it: " + ", ".join(f"{u} {len(cs)} left" for u, cs in left.items())
+        lines.append(
+            f"Repeat or re-check {oid} ({obs.describe()}): in {counts[oid]} of {len(solution.conflicts)} "
+            f"conflicting set(s){after}."
+        )
+    return lines
+
+
+def plan(
+    project: Project,
+    unknown: str | None = None,
+    lookahead: bool = False,
+    ranking: str = "value",
+    solution: Solution | None = None,
+    limit: int = 25,
+) -> Plan:
+    """Rank the next experiments for ``project`` (or one ``unknown`` of it).
+
+    ``ranking`` is ``"value"`` (information per effort) or ``"information"``.
+    """
+    if ranking not in ("value", "information"):
+        raise ValueError(f"ranking must be 'value' or 'information', got {ranking!r}")
+    sol = solution or solve(project)
+    if sol.contradictory:
+        return Plan((), (), tuple(_advice_for_conflicts(sol)), (), ranking)
+    targets = [unknown] if unknown else list(project.unknown_ids)
+    for t in targets:
+        if t not in project.unknown_ids:
+            from workbench.errors import ObservationError
+
+            raise ObservationError(None, "unknown", f"no unknown has id {t!r} (ids: {', '.join(project.unknown_ids)})")
+    solved = tuple(u for u in targets if len(sol.survivors[u]) <= 1)
+    experiments: list[Experiment] = []
+    labels_of: dict[int, dict[Chain, Hashable]] = {}
+    for uid in targets:
+        survivors = sol.survivors[uid]
+        if len(survivors) <= 1:
+            continue
+        for kind, fields, title, fn in _experiments_for(uid, survivors, [u for u in project.unknown_ids if u != uid]):
+            labels = fn(survivors)
+            exp = _score(kind, fields, title, uid, labels)
+            if exp.information_bits > 1e-9:
+                experiments.append(exp)
+                labels_of[id(exp)] = labels
+    key = (
+        (lambda e: (-e.value, -e.information_bits))
+        if ranking == "value"
+        else (lambda e: (-e.information_bits, -e.value))
+    )
+    experiments.sort(key=key)
+    pairs: list[ExperimentPair] = []
+    if lookahead:
+        pool = sorted(experiments, key=lambda e: -e.information_bits)[:30]
+        for a, b in itertools.combinations(pool, 2):
+            if a.unknown != b.unknown:
+                continue
+            la, lb = labels_of[id(a)], labels_of[id(b)]
+            joint: dict[tuple, int] = defaultdict(int)
+            for chain in la:
+                joint[(la[chain], lb[chain])] += 1
+            sizes = list(joint.values())
+            pairs.append(ExperimentPair(a, b, entropy_bits(sizes), _expected_remaining(sizes)))
+        pairs.sort(key=lambda p: (-p.information_bits, p.first.cost.effort + p.second.cost.effort))
+        pairs = pairs[:10]
+    advice: list[str] = []
+    if solved and len(solved) == len(targets):
+        advice.append("Every unknown asked about is solved: no further experiment is needed.")
+    elif not experiments:
+        advice.append("No experiment in the workbench's repertoire tells the remaining survivors apart.")
+    return Plan(tuple(experiments[:limit]), tuple(pairs), tuple(advice), solved, ranking)
