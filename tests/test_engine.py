@@ -1,0 +1,237 @@
+"""The constraint engine on worked textbook configuration proofs and on random projects."""
+
+from __future__ import annotations
+
+import itertools
+from pathlib import Path
+
+from hypothesis import HealthCheck, given, settings
+from hypothesis import strategies as st
+
+from workbench.chem import catalogue, display_name
+from workbench.chem.catalogue import Scope
+from workbench.evidence import load_project, project_from_dict, solve
+from workbench.evidence.engine import constraints_of, unary_domains
+
+DATA = Path(__file__).parent / "data"
+
+
+def project(unknowns, observations, title="test"):
+    return project_from_dict(
+        {
+            "format": "stereosieve-project",
+            "version": 1,
+            "title": title,
+            "unknowns": unknowns,
+            "observations": observations,
+        }
+    )
+
+
+def names(solution, uid):
+    return sorted(display_name(c) for c in solution.survivors[uid])
+
+
+def test_fischer_proof_of_glucose():
+    # Fischer (1891) as given in Carey, Organic Chemistry, ch. 25, and Morrison and
+    # Boyd [from memory]: (-)-arabinose extends to glucose + mannose, all three
+    # aldaric acids optically active, glucaric acid also from another aldohexose.
+    sol = solve(load_project(DATA / "fischer_glucose.json"))
+    assert names(sol, "G") == ["D-glucose"]
+    assert names(sol, "M") == ["D-mannose"]
+    assert names(sol, "A") == ["D-arabinose"]
+    assert names(sol, "X") == ["L-gulose"]  # D-glucaric = L-gularic acid (REFERENCE_VALUES.md)
+    assert not sol.conflicts
+    counts = [step.counts["G"] for step in sol.trail]
+    assert counts == sorted(counts, reverse=True)  # the set only shrinks
+
+
+def test_ruff_degradation_proof_of_arabinose():
+    # Textbook exercise (e.g. McMurry, Organic Chemistry, ch. 25 problems [from memory]):
+    # a D-aldopentose gives an optically active aldaric acid; its Ruff product is a
+    # tetrose whose aldaric acid is meso (erythraric acid) -> D-arabinose.
+    scope5 = {"carbons": [5], "carbonyl": ["aldose"], "series": ["D"]}
+    p = project(
+        [{"id": "P", "scope": scope5}, {"id": "T", "scope": {"carbons": [4], "carbonyl": ["aldose"]}}],
+        [
+            {"id": "E1", "kind": "aldaric_acid", "unknown": "P", "optically_active": True},
+            {"id": "E2", "kind": "chain_shortening", "method": "ruff", "substrate": "P", "product": "T"},
+            {"id": "E3", "kind": "aldaric_acid", "unknown": "T", "optically_active": False},
+        ],
+    )
+    sol = solve(p)
+    assert names(sol, "P") == ["D-arabinose"]
+    assert names(sol, "T") == ["D-erythrose"]
+
+
+def test_osazone_family_and_known_reference():
+    # D-glucose, D-mannose and D-fructose give the same osazone (Fischer; Carey ch. 25)
+    p = project(
+        [{"id": "U", "scope": {"carbons": [6], "series": ["D"]}}],
+        [
+            {
+                "id": "E1",
+                "kind": "same_product",
+                "reaction": "osazone",
+                "members": ["U", "D-mannose"],
+                "relation": "identical",
+            },
+            {"id": "E2", "kind": "bromine_water", "unknown": "U", "result": "unchanged"},
+        ],
+    )
+    sol = solve(p)
+    assert names(sol, "U") == ["D-fructose"]
+
+
+def test_galactose_from_meso_alditol_and_lyxose():
+    # D-galactose: galactitol is meso and Ruff/Wohl degradation gives D-lyxose
+    # (REFERENCE_VALUES.md; Collins and Ferrier [memory])
+    p = project(
+        [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"]}}],
+        [
+            {"id": "E1", "kind": "alditol", "unknown": "U", "optically_active": False},
+            {"id": "E2", "kind": "chain_shortening", "method": "wohl", "substrate": "U", "product": "D-lyxose"},
+        ],
+    )
+    assert names(solve(p), "U") == ["D-galactose"]
+
+
+def test_rhamnose_scope_with_deoxy_modification():
+    # L-rhamnose is 6-deoxy-L-mannose: its C-2 epimer 6-deoxy-L-glucose shares the
+    # osazone (IUPAC-IUBMB 2-Carb-10; osazone rule, Carey ch. 25)
+    p = project(
+        [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["L"], "modifications": ["deoxy:6"]}}],
+        [
+            {
+                "id": "E1",
+                "kind": "same_product",
+                "reaction": "osazone",
+                "members": ["U", "6-deoxy-L-gluco-hexose"],
+                "relation": "identical",
+            },
+            {"id": "E2", "kind": "different", "members": ["U", "6-deoxy-L-gluco-hexose"]},
+        ],
+    )
+    assert names(solve(p), "U") == ["L-rhamnose"]
+
+
+def test_contradiction_lists_minimal_sets_and_relief():
+    # an aldohexose whose alditol is meso (allitol, galactitol) has a meso aldaric acid
+    # too (allaric, galactaric; REFERENCE_VALUES.md), so E2 and E4 cannot both hold
+    sol = solve(load_project(DATA / "contradictory.json"))
+    assert sol.contradictory
+    assert [set(c) for c in sol.conflicts] == [{"E2", "E4"}]
+    assert sorted(display_name(c) for c in sol.relief["E4"]["U1"]) == [
+        "D-altrose",
+        "D-glucose",
+        "D-gulose",
+        "D-idose",
+        "D-mannose",
+        "D-talose",
+    ]
+    assert sorted(display_name(c) for c in sol.relief["E2"]["U1"]) == ["D-allose", "D-galactose"]
+    assert [s.status for s in sol.trail] == ["applied", "applied", "applied", "contradicts"]
+
+
+def test_disabled_observation_is_a_what_if():
+    sol = solve(load_project(DATA / "contradictory.json"), disabled=["E4"])
+    assert not sol.contradictory and len(sol.survivors["U1"]) == 6
+    assert sol.trail[-1].status == "disabled"
+
+
+def test_eliminated_candidates_carry_their_reason():
+    sol = solve(load_project(DATA / "contradictory.json"), disabled=["E4"])
+    allose = next(c for c in sol.eliminated_by("U1") if display_name(c) == "D-allose")
+    assert sol.eliminated_by("U1")[allose] == "E2"
+    assert "meso" in sol.reason("U1", allose)
+
+
+# ------------------------------------------------------------ exactness
+SMALL = [
+    {"carbons": [4], "carbonyl": ["aldose"]},
+    {"carbons": [5], "carbonyl": ["aldose"]},
+    {"carbons": [4, 5]},
+    {"carbons": [5, 6], "carbonyl": ["aldose"], "series": ["D"]},
+]
+UNARY = st.one_of(
+    st.builds(lambda v: {"kind": "aldaric_acid", "optically_active": v}, st.booleans()),
+    st.builds(lambda v: {"kind": "alditol", "optically_active": v}, st.booleans()),
+    st.builds(lambda v: {"kind": "series", "value": v}, st.sampled_from(["D", "L"])),
+    st.builds(lambda v: {"kind": "bromine_water", "result": v}, st.sampled_from(["oxidised", "unchanged"])),
+)
+RELATION = st.one_of(
+    st.builds(
+        lambda r, rel: {"kind": "same_product", "reaction": r, "relation": rel},
+        st.sampled_from(["osazone", "aldaric_acid", "alditol"]),
+        st.sampled_from(["identical", "enantiomeric", "different"]),
+    ),
+    st.just({"kind": "different"}),
+    st.just({"kind": "chain_shortening", "method": "ruff"}),
+    st.just({"kind": "chain_extension", "method": "kiliani_fischer"}),
+)
+
+
+@st.composite
+def small_projects(draw):
+    n = draw(st.integers(2, 3))
+    unknowns = [{"id": f"U{i}", "scope": draw(st.sampled_from(SMALL))} for i in range(n)]
+    obs = []
+    for k in range(draw(st.integers(1, 4))):
+        if draw(st.booleans()):
+            o = dict(draw(UNARY))
+            o["unknown"] = f"U{draw(st.integers(0, n - 1))}"
+        else:
+            o = dict(draw(RELATION))
+            a, b = draw(st.permutations(range(n)))[:2]
+            if o["kind"] == "chain_shortening":
+                o.update(substrate=f"U{a}", product=f"U{b}")
+            elif o["kind"] == "chain_extension":
+                o.update(substrate=f"U{a}", products=[f"U{b}"])
+            else:
+                o["members"] = [f"U{a}", f"U{b}"]
+        o["id"] = f"E{k}"
+        obs.append(o)
+    return project(unknowns, obs)
+
+
+def brute_force(p):
+    """Survivors by enumerating every joint assignment (small projects only)."""
+    domains = unary_domains(p, p.observations)
+    cons = []
+    for o in p.observations:
+        if not o.UNARY:
+            cs, fixed = constraints_of(p, o)
+            cons += cs
+            domains.update({k: [v] for k, v in fixed.items()})
+    ids = list(domains)
+    keep = {u: set() for u in ids}
+    for combo in itertools.product(*(domains[u] for u in ids)):
+        a = dict(zip(ids, combo, strict=True))
+        if all(c.test(a[c.a], a[c.b]) for c in cons):
+            for u in ids:
+                keep[u].add(a[u])
+    return {u: keep[u] for u in p.unknown_ids}
+
+
+@settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(small_projects())
+def test_survivors_equal_brute_force_enumeration(p):
+    # exactness: survivors = candidates in at least one joint assignment (issue 4)
+    expected = brute_force(p)
+    sol = solve(p)
+    if all(expected[u] for u in p.unknown_ids):
+        assert {u: set(sol.survivors[u]) for u in p.unknown_ids} == expected
+        assert not sol.conflicts
+    else:
+        assert sol.conflicts
+        for conflict in sol.conflicts:  # every conflict set is minimal
+            for oid in conflict:
+                rest = [o for o in p.observations if o.id in conflict and o.id != oid]
+                sub = project([u.to_dict() for u in p.unknowns], [o.to_dict() for o in rest])
+                assert not solve(sub).conflicts
+
+
+def test_scope_counts_are_reported():
+    sol = solve(load_project(DATA / "fischer_glucose.json"))
+    assert sol.scope_counts == {"G": 16, "M": 16, "A": 8, "X": 16}
+    assert len(catalogue(Scope(carbons=(6,), carbonyl=("aldose",)))) == 16
