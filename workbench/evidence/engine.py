@@ -140,7 +140,10 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
             def tokens(c: Chain, r: str = obs.reaction):
                 return product_key(r, c) or ()
 
-        for a, b in itertools.combinations(names, 2):
+        # one product per compound: identity is transitive, so a chain of pairs says it all
+        transitive = obs.relation == "identical" and obs.reaction != "alditol"
+        pairs = list(itertools.pairwise(names)) if transitive else list(itertools.combinations(names, 2))
+        for a, b in pairs:
             out.append(Binary(a, b, test, obs.id, tokens, tokens))
     elif kind == "different":
         names = [ref(m) for m in obs.members]
