@@ -263,9 +263,41 @@ def _conflict_sets(project: Project, observations: list[Observation]) -> list[tu
 
 
 # ------------------------------------------------------------------ solving
-def _explain_relational(obs: Observation, uid: str) -> str:
+_WORDS = {
+    "chain_extension": "Kiliani-Fischer relation",
+    "chain_shortening": "Ruff/Wohl relation",
+    "different": "requirement to be a different compound",
+}
+
+
+def _explain_relational(project: Project, obs: Observation, uid: str, chain: Chain) -> str:
+    """Why ``chain`` cannot be ``uid`` under relational ``obs``, as specific as the data allow."""
     others = [m for m in obs.references() if m != uid]
-    return f"no choice of {', '.join(others)} satisfies {obs.KIND} together with the evidence before it"
+    known = [m for m in others if m not in project.unknown_ids]
+    if obs.KIND == "same_product" and known:
+        mine = product_key(obs.reaction, chain)
+        if mine is None:
+            return f"it gives no {obs.reaction.replace('_', ' ')}"
+        for ref in known:
+            theirs = product_key(obs.reaction, project.member(ref))
+            if theirs is None:
+                continue
+            rel = reactions.relation_of_sets(mine, theirs)
+            wanted_ok = rel != "identical" if obs.relation == "different" else rel == obs.relation
+            if not wanted_ok:
+                return f"its {obs.reaction.replace('_', ' ')} and that of {ref} are {rel}, observed {obs.relation}"
+    if obs.KIND == "chain_shortening" and obs.substrate == uid and known:
+        product = _shortened(chain)
+        made = display_name(product) if product else "nothing"
+        return f"its Ruff/Wohl product would be {made}, observed {obs.product}"
+    what = _WORDS.get(obs.KIND, f"{getattr(obs, 'relation', '')} {getattr(obs, 'reaction', '')} relation".strip())
+    return f"no candidate of {', '.join(others)} fits the {what} with it, given the evidence so far"
+
+
+def _explain_knock_on(project: Project, obs: Observation, uid: str, applied: list[Observation]) -> str:
+    links = [o.id for o in applied if not o.UNARY and uid in o.references() and obs.unknown in o.references()]
+    via = f" (linked through {', '.join(links)})" if links else ""
+    return f"{obs.id} removed every partner it could have in {obs.unknown}{via}"
 
 
 def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
@@ -298,9 +330,11 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
                         verdict = fits(obs, c)
                         reasons[uid][c] = verdict.reason if not verdict.fits else "no partner survives"
                     elif obs.UNARY:
-                        reasons[uid][c] = f"its partners in a relation were removed by {obs.id}"
+                        reasons[uid][c] = _explain_knock_on(project, obs, uid, applied)
+                    elif uid in obs.references():
+                        reasons[uid][c] = _explain_relational(project, obs, uid, c)
                     else:
-                        reasons[uid][c] = _explain_relational(obs, uid)
+                        reasons[uid][c] = f"{obs.id} removed every partner it could have in a linked unknown"
         if obs.UNARY:
             for c in trial[obs.unknown]:
                 verdict = fits(obs, c)
