@@ -21,12 +21,12 @@ from workbench.chem import reactions
 from workbench.chem.catalogue import catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
-from workbench.evidence.network import Binary, find_solution, supported_domains
+from workbench.evidence.network import Binary, components, enumerate_solutions, find_solution, supported_domains
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import fits, product_key
 from workbench.evidence.project import Project
 
-__all__ = ["TrailStep", "Solution", "solve", "constraints_of", "unary_domains", "is_consistent"]
+__all__ = ["TrailStep", "Solution", "solve", "constraints_of", "unary_domains", "is_consistent", "joint_worlds"]
 
 log = logging.getLogger(__name__)
 _MAX_CONFLICT_SETS = 6
@@ -370,3 +370,36 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
 def describe_survivor(chain: Chain) -> str:
     """Name used in trails and tables."""
     return display_name(chain)
+
+
+def joint_worlds(solution: Solution, limit: int = 20000) -> dict[str, list[dict[str, Chain]]]:
+    """Joint assignments of linked unknowns: for each unknown, the solutions of its group.
+
+    Unknowns linked by relations are enumerated together (a uniform prior over
+    joint assignments); an unknown whose group has more than ``limit``
+    solutions is left out, and the planner then treats its survivors alone.
+    """
+    project = solution.project
+    if solution.contradictory:
+        return {}
+    active = [o for o in project.observations if o.id not in solution.disabled]
+    domains: dict[str, list[Chain]] = {u: list(solution.survivors[u]) for u in project.unknown_ids}
+    constraints: list[Binary] = []
+    for obs in active:
+        if not obs.UNARY:
+            cons, fixed = constraints_of(project, obs)
+            constraints += cons
+            for name, chain in fixed.items():
+                domains[name] = [chain]
+    out: dict[str, list[dict[str, Chain]]] = {}
+    for group in components(domains, constraints):
+        sub_domains = {v: domains[v] for v in group}
+        sub_cons = [c for c in constraints if c.a in sub_domains]
+        worlds = enumerate_solutions(sub_domains, sub_cons, limit)
+        if worlds is None:
+            continue
+        clean = [{k: v for k, v in w.items() if not k.startswith("=")} for w in worlds]
+        for v in group:
+            if not v.startswith("="):
+                out[v] = clean
+    return out

@@ -339,3 +339,55 @@ def _repairs(var: str, value: Chain, witnesses: list[dict[str, Chain]], cons: li
             supported[var].add(value)
             return True
     return False
+
+
+def enumerate_solutions(domains: Domains, constraints: list[Binary], limit: int) -> list[dict[str, Chain]] | None:
+    """Every complete solution (at most ``limit``; None when there are more).
+
+    Meant for domains already reduced by :func:`supported_domains`, where every
+    value extends to a solution, so the backtracking rarely dead-ends.
+    """
+    constraints = _merge(constraints)
+    by_var: dict[str, list[Binary]] = defaultdict(list)
+    for c in constraints:
+        by_var[c.a].append(c)
+        by_var[c.b].append(c)
+    if not domains:
+        return [{}]
+    finder = _WitnessFinder(domains, constraints, by_var)
+    order = finder._order(next(iter(domains)))
+    out: list[dict[str, Chain]] = []
+    assignment: dict[str, Chain] = {}
+
+    def walk(i: int) -> bool:
+        if i == len(order):
+            out.append(dict(assignment))
+            return len(out) <= limit
+        v = order[i]
+        for y in finder._candidates(v, assignment):
+            if all(c.holds(v, y, assignment[c.other(v)]) for c in by_var[v] if c.other(v) in assignment):
+                assignment[v] = y
+                if not walk(i + 1):
+                    return False
+                del assignment[v]
+        return True
+
+    return out if walk(0) else None
+
+
+def components(variables: Iterable[str], constraints: list[Binary]) -> list[list[str]]:
+    """Connected groups of variables under the constraints, in first-seen order."""
+    parent = {v: v for v in variables}
+
+    def root(v: str) -> str:
+        while parent[v] != v:
+            parent[v] = parent[parent[v]]
+            v = parent[v]
+        return v
+
+    for c in constraints:
+        parent[root(c.a)] = root(c.b)
+    groups: dict[str, list[str]] = {}
+    for v in parent:
+        groups.setdefault(root(v), []).append(v)
+    return list(groups.values())

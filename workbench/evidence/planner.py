@@ -33,7 +33,7 @@ from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.parse import resolve
 from workbench.evidence.costs import Cost, cautions_of, cost_of
-from workbench.evidence.engine import Solution, solve
+from workbench.evidence.engine import Solution, joint_worlds, solve
 from workbench.evidence.observations import OBSERVATION_TYPES
 from workbench.evidence.outcomes import NO_PREDICTION, outcome_label, predict, product_key
 from workbench.evidence.project import Project
@@ -162,13 +162,14 @@ def _expected_remaining(sizes: Sequence[int]) -> float:
 
 def _cluster(values: dict[Chain, float], tolerance: float) -> dict[Chain, Hashable]:
     """Group numeric outcomes: neighbours closer than ``tolerance`` share a group label."""
+    digits = 2 if tolerance < 0.5 else 1
     order = sorted(values, key=lambda c: values[c])
     labels: dict[Chain, Hashable] = {}
     group: list[Chain] = []
 
     def close(g: list[Chain]) -> None:
-        lo, hi = values[g[0]], values[g[-1]]
-        label = f"{lo:.1f}" if abs(hi - lo) < 1e-9 else f"{lo:.1f} to {hi:.1f}"
+        lo, hi = f"{values[g[0]]:.{digits}f}", f"{values[g[-1]]:.{digits}f}"
+        label = lo if lo == hi else f"{lo} to {hi}"
         for c in g:
             labels[c] = label
 
@@ -297,23 +298,56 @@ def _experiments_for(
     return out
 
 
-def _score(kind: str, fields: dict, title: str, uid: str, labels: dict[Chain, Hashable]) -> Experiment:
-    groups: dict[str, list[str]] = defaultdict(list)
-    for chain, label in labels.items():
-        groups[str(label)].append(display_name(chain))
-    sizes = [len(v) for v in groups.values()]
+def _score(
+    kind: str,
+    fields: dict,
+    title: str,
+    uid: str,
+    labels: list[Hashable],
+    names: list[str],
+) -> Experiment:
+    """Score one experiment over its units (joint worlds, or the unknown's survivors).
+
+    ``labels[i]`` is the predicted outcome in unit i and ``names[i]`` what the
+    user sees for that unit (a survivor name, or ``U1=..., U2=...``). The
+    information is the entropy of the outcome weights; the expected number of
+    survivors afterwards is the weighted mean of distinct names per outcome.
+    """
+    weights: dict[str, int] = defaultdict(int)
+    groups: dict[str, dict[str, None]] = defaultdict(dict)
+    for label, name in zip(labels, names, strict=True):
+        weights[str(label)] += 1
+        groups[str(label)][name] = None
+    total = sum(weights.values())
     cost = cost_of(kind, fields.get("reaction"))
     return Experiment(
         kind=kind,
         fields=fields,
         unknown=uid,
-        information_bits=entropy_bits(sizes),
-        expected_remaining=_expected_remaining(sizes),
+        information_bits=entropy_bits(list(weights.values())),
+        expected_remaining=sum(weights[k] / total * len(groups[k]) for k in weights) if total else 0.0,
         outcomes={k: tuple(v) for k, v in sorted(groups.items())},
         cost=cost,
         cautions=tuple(cautions_of(cost)),
         title=title,
     )
+
+
+def _pair_experiments(uid: str, others: Sequence[str], worlds: list[dict[str, Chain]]):
+    """Compare the products of two unknowns (same osazone / alditol / aldaric acid?)."""
+    for other in others:
+        if other not in worlds[0]:
+            continue
+        for reaction in ("osazone", "alditol", "aldaric_acid"):
+            labels: list[Hashable] = []
+            names: list[str] = []
+            for w in worlds:
+                ka, kb = product_key(reaction, w[uid]), product_key(reaction, w[other])
+                labels.append("no product" if ka is None or kb is None else reactions.relation_of_sets(ka, kb))
+                names.append(f"{uid}={display_name(w[uid])}, {other}={display_name(w[other])}")
+            fields = {"reaction": reaction, "members": [uid, other]}
+            title = f"compare the {reaction.replace('_', ' ')} of {uid} with that of {other}"
+            yield "same_product", fields, title, labels, names
 
 
 def _advice_for_conflicts(solution: Solution) -> list[str]:
@@ -359,18 +393,49 @@ def plan(
 
             raise ObservationError(None, "unknown", f"no unknown has id {t!r} (ids: {', '.join(project.unknown_ids)})")
     solved = tuple(u for u in targets if len(sol.survivors[u]) <= 1)
+    worlds = joint_worlds(sol)
     experiments: list[Experiment] = []
-    labels_of: dict[int, dict[Chain, Hashable]] = {}
+    labels_of: dict[int, tuple[str, list[Hashable]]] = {}
+    done_pairs: set[frozenset[str]] = set()
+
+    def add(kind: str, fields: dict, title: str, uid: str, labels: list[Hashable], names: list[str], unit: str) -> None:
+        exp = _score(kind, fields, title, uid, labels, names)
+        if exp.information_bits > 1e-9:
+            experiments.append(exp)
+            labels_of[id(exp)] = (unit, labels)
+
     for uid in targets:
         survivors = sol.survivors[uid]
         if len(survivors) <= 1:
             continue
-        for kind, fields, title, fn in _experiments_for(uid, survivors, [u for u in project.unknown_ids if u != uid]):
-            labels = fn(survivors)
-            exp = _score(kind, fields, title, uid, labels)
-            if exp.information_bits > 1e-9:
-                experiments.append(exp)
-                labels_of[id(exp)] = labels
+        mine = worlds.get(uid)
+        for kind, fields, title, fn in _experiments_for(uid, survivors, ()):
+            per_chain = fn(survivors)
+            if mine:
+                add(
+                    kind,
+                    fields,
+                    title,
+                    uid,
+                    [per_chain[w[uid]] for w in mine],
+                    [display_name(w[uid]) for w in mine],
+                    f"worlds:{uid}",
+                )
+            else:
+                add(
+                    kind,
+                    fields,
+                    title,
+                    uid,
+                    [per_chain[c] for c in survivors],
+                    [display_name(c) for c in survivors],
+                    uid,
+                )
+        if mine:
+            others = [u for u in project.unknown_ids if u != uid and frozenset((uid, u)) not in done_pairs]
+            for kind, fields, title, labels, names in _pair_experiments(uid, others, mine):
+                done_pairs.add(frozenset(fields["members"]))
+                add(kind, fields, title, uid, labels, names, f"worlds:{uid}")
     key = (
         (lambda e: (-e.value, -e.information_bits))
         if ranking == "value"
@@ -381,12 +446,13 @@ def plan(
     if lookahead:
         pool = sorted(experiments, key=lambda e: -e.information_bits)[:30]
         for a, b in itertools.combinations(pool, 2):
-            if a.unknown != b.unknown:
+            unit_a, la = labels_of[id(a)]
+            unit_b, lb = labels_of[id(b)]
+            if unit_a != unit_b:
                 continue
-            la, lb = labels_of[id(a)], labels_of[id(b)]
             joint: dict[tuple, int] = defaultdict(int)
-            for chain in la:
-                joint[(la[chain], lb[chain])] += 1
+            for x, y in zip(la, lb, strict=True):
+                joint[(x, y)] += 1
             sizes = list(joint.values())
             pairs.append(ExperimentPair(a, b, entropy_bits(sizes), _expected_remaining(sizes)))
         pairs.sort(key=lambda p: (-p.information_bits, p.first.cost.effort + p.second.cost.effort))
