@@ -11,7 +11,7 @@ from hypothesis import strategies as st
 from workbench.chem import catalogue, display_name
 from workbench.chem.catalogue import Scope
 from workbench.evidence import load_project, project_from_dict, solve
-from workbench.evidence.engine import constraints_of, unary_domains
+from workbench.evidence.engine import constraints_of, joint_worlds, unary_domains
 
 DATA = Path(__file__).parent / "data"
 
@@ -205,23 +205,30 @@ def brute_force(p):
             domains.update({k: [v] for k, v in fixed.items()})
     ids = list(domains)
     keep = {u: set() for u in ids}
+    solutions = []
     for combo in itertools.product(*(domains[u] for u in ids)):
         a = dict(zip(ids, combo, strict=True))
         if all(c.test(a[c.a], a[c.b]) for c in cons):
+            solutions.append(a)
             for u in ids:
                 keep[u].add(a[u])
-    return {u: keep[u] for u in p.unknown_ids}
+    return {u: keep[u] for u in p.unknown_ids}, solutions
 
 
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 @given(small_projects())
 def test_survivors_equal_brute_force_enumeration(p):
     # exactness: survivors = candidates in at least one joint assignment (issue 4)
-    expected = brute_force(p)
+    expected, solutions = brute_force(p)
     sol = solve(p)
     if all(expected[u] for u in p.unknown_ids):
         assert {u: set(sol.survivors[u]) for u in p.unknown_ids} == expected
         assert not sol.conflicts
+        worlds = joint_worlds(sol)  # the planner's joint assignments: every one, each once
+        for u, ws in worlds.items():
+            group = sorted(ws[0])
+            projected = {tuple(s[v] for v in group) for s in solutions}
+            assert len(ws) == len(projected) == len({tuple(w[v] for v in group) for w in ws})
     else:
         assert sol.conflicts
         for conflict in sol.conflicts:  # every conflict set is minimal
