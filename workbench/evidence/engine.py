@@ -309,11 +309,23 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
     applied: list[Observation] = []
     trail: list[TrailStep] = []
     flags: dict[str, dict[Chain, list[str]]] = {u: {} for u in project.unknown_ids}
+    constraints: list[Binary] = []
+    fixed: dict[str, Chain] = {}
     for obs in project.observations:
         if obs.id in off:
             trail.append(TrailStep(obs.id, "disabled", {}, {u: len(current[u]) for u in current}))
             continue
-        trial = _survivors(project, applied + [obs])
+        # Survivors of observations 1..k lie within those of 1..k-1, so each step starts from `current`.
+        domains = {k: list(v) for k, v in current.items()}
+        new_cons: list[Binary] = []
+        new_fixed: dict[str, Chain] = {}
+        if obs.UNARY:
+            domains[obs.unknown] = [c for c in domains[obs.unknown] if fits(obs, c).fits]
+        else:
+            new_cons, new_fixed = constraints_of(project, obs)
+        domains.update({k: [v] for k, v in {**fixed, **new_fixed}.items()})
+        result = None if any(not d for d in domains.values()) else supported_domains(domains, constraints + new_cons)
+        trial = None if result is None else {k: v for k, v in result.items() if not k.startswith("=")}
         if trial is None:
             trail.append(TrailStep(obs.id, "contradicts", {}, {u: len(current[u]) for u in current}))
             continue
@@ -341,6 +353,8 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
                 if verdict.flagged:
                     flags[obs.unknown].setdefault(c, []).append(f"{obs.id}: {verdict.reason}")
         applied.append(obs)
+        constraints += new_cons
+        fixed.update(new_fixed)
         current = {k: list(v) for k, v in trial.items()}
         trail.append(TrailStep(obs.id, "applied", eliminated, {u: len(current[u]) for u in current}, reasons))
     conflicts: list[tuple[str, ...]] = []
