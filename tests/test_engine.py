@@ -225,7 +225,7 @@ def test_survivors_equal_brute_force_enumeration(p):
         assert {u: set(sol.survivors[u]) for u in p.unknown_ids} == expected
         assert not sol.conflicts
         worlds = joint_worlds(sol)  # the planner's joint assignments: every one, each once
-        for u, ws in worlds.items():
+        for ws in worlds.values():
             group = sorted(ws[0])
             projected = {tuple(s[v] for v in group) for s in solutions}
             assert len(ws) == len(projected) == len({tuple(w[v] for v in group) for w in ws})

@@ -48,9 +48,29 @@ def predict_text(chain: Chain) -> str:
         f"  SMILES   {ident['smiles']}",
         f"  InChIKey {ident['inchikey']}",
     ]
-    for key, value in predict_json(chain).items():
-        lines.append(f"  {key}: {_short(value)}")
+    data = predict_json(chain)
+    for key in _TEXT_KEYS:
+        if key in data:
+            lines.append(f"  {key}: {_short(data[key])}")
     return "\n".join(lines)
+
+
+# The keys of DESIGN.md's predict table, in the order a chemist reads them.
+_TEXT_KEYS = (
+    "reducing_test",
+    "bromine_water",
+    "ketose_test",
+    "aldonic_acid",
+    "aldaric_acid",
+    "alditol",
+    "osazone",
+    "periodate",
+    "chain_extension",
+    "chain_shortening",
+    "anomers",
+    "chairs",
+    "couplings",
+)
 
 
 def _short(value: object) -> str:

@@ -22,17 +22,45 @@ Textbook rules (Collins and Ferrier, *Monosaccharides*, 1995; Carey,
 - Kiliani-Fischer (HCN, then reduction) adds a carbon at C-1 and gives the two
   C-2 epimers; Ruff (H2O2/Fe3+ on the calcium aldonate) and Wohl (oxime,
   acetylation, loss of HCN) remove C-1 of an aldose with an OH at C-2.
+- an aldonic acid closes to the 1,4-lactone (gamma, five-membered) when C-4
+  carries OH and to the 1,5-lactone (delta, six-membered) when C-5 does; the
+  gamma-lactone is the more stable at equilibrium, the delta-lactone is the
+  first product of bromine-water oxidation of a pyranose (Isbell and Frush,
+  1930s [from memory]).
+- Fehling, Benedict and Tollens reagents are reduced by every free aldose
+  and by 2-ketoses too: in the hot alkaline reagent a 2-ketose enolises
+  (Lobry de Bruyn-Alberda van Ekenstein) to the 1,2-enediol, which is
+  oxidised, so fructose is a reducing sugar even though bromine water (acid,
+  no enolisation) leaves it unchanged. Glycosides and alditols are negative.
+- the Seliwanoff test (resorcinol in hot HCl) turns cherry-red within about
+  a minute for a 2-ketose that can dehydrate to a 2-furaldehyde
+  (5-hydroxymethylfurfural from a hexulose, furfural from a pentulose);
+  aldoses give colour only after long heating (isomerisation first).
+
+Cautions for the bench (the cautions table is built elsewhere): nitric acid
+is an oxidiser with NO2 fumes; bromine is fatal if inhaled; phenylhydrazine is
+toxic and a suspected carcinogen; cyanide (Kiliani-Fischer) must be kept
+alkaline in a hood; borohydride releases hydrogen with acid or water.
 """
 
 from __future__ import annotations
 
 from dataclasses import dataclass
 
+from rdkit import Chem
+
 from workbench.chem.chain import LEFT, RIGHT, Chain
-from workbench.chem.smiles import canonical, is_achiral, mirror_smiles, to_smiles
+from workbench.chem.smiles import _write, canonical, is_achiral, mirror_smiles, quiet_rdkit, to_smiles
+from workbench.errors import StructureError
 
 __all__ = [
     "NotApplicable",
+    "Outcome",
+    "Lactone",
+    "bromine_water",
+    "reducing_test",
+    "ketose_test",
+    "lactones",
     "aldonic_acid",
     "aldaric_acid",
     "alditols",
@@ -55,6 +83,92 @@ class NotApplicable:
         return False
 
 
+@dataclass(frozen=True)
+class Outcome:
+    """What a qualitative test shows (``result`` in the observation's words) and why."""
+
+    result: str
+    reason: str
+
+    def __post_init__(self) -> None:
+        if self.result not in _RESULT_WORDS:
+            raise StructureError(f"test result {self.result!r} is not one of {', '.join(_RESULT_WORDS)}")
+
+
+_RESULT_WORDS = ("positive", "negative", "oxidised", "unchanged")
+
+
+@dataclass(frozen=True)
+class Lactone:
+    """An intramolecular ester of an aldonic acid: C-1 acylates O-``position``."""
+
+    position: int  # 4 (gamma, five-membered ring) or 5 (delta, six-membered)
+    smiles: str
+
+    @property
+    def ring(self) -> str:
+        """``gamma`` for the 1,4-lactone, ``delta`` for the 1,5-lactone."""
+        return {4: "gamma", 5: "delta"}[self.position]
+
+    @property
+    def label(self) -> str:
+        """E.g. ``1,4-lactone (gamma)``."""
+        return f"1,{self.position}-lactone ({self.ring})"
+
+
+def bromine_water(chain: Chain) -> Outcome:
+    """Bromine water (buffered, mildly acidic): aldoses oxidised, ketoses unchanged."""
+    if chain.carbonyl == "aldose":
+        return Outcome("oxidised", "the C-1 aldehyde is oxidised to the aldonic acid")
+    if chain.carbonyl == "ketose":
+        return Outcome("unchanged", "a ketose has no aldehyde, and in acid it does not enolise to one")
+    return Outcome("unchanged", "no free aldehyde group")
+
+
+def _bears_oxygen_or_nitrogen(chain: Chain, carbon: int) -> bool:
+    return 1 <= carbon <= chain.carbons and chain.groups[carbon - 1] in ("CH2OH", "CHOH", "CHNH2")
+
+
+def reducing_test(chain: Chain) -> Outcome:
+    """Fehling, Benedict or Tollens test (hot alkaline Cu(II) or Ag(I)).
+
+    Positive for every free aldose and for a 2-ketose with OH (or NH2) on a
+    carbon next to the carbonyl: base-catalysed enolisation gives the
+    enediol, which the reagent oxidises. This is why fructose is reducing.
+    """
+    if chain.carbonyl == "aldose":
+        return Outcome("positive", "the free aldehyde reduces the reagent")
+    if chain.carbonyl == "ketose":
+        if _bears_oxygen_or_nitrogen(chain, 1) or _bears_oxygen_or_nitrogen(chain, 3):
+            return Outcome(
+                "positive",
+                "the alpha-hydroxy ketone enolises in the hot alkaline reagent to an enediol, which is oxidised",
+            )
+        return Outcome("negative", "no OH next to the ketone, so no enediol can form")
+    return Outcome("negative", "no free carbonyl group (glycoside or alditol)")
+
+
+def ketose_test(chain: Chain) -> Outcome:
+    """Seliwanoff test (resorcinol, hot HCl): fast red colour for a 2-ketose.
+
+    Positive when the ketose can dehydrate to a 2-furaldehyde: C-1 a CH2OH
+    (it becomes the aldehyde), OH at C-3 and C-4 (lost as water) and at C-5
+    (the furan oxygen). Aldoses react only on prolonged heating: negative.
+    """
+    if chain.carbonyl != "ketose":
+        why = "an aldose dehydrates only slowly (faint colour after long heating)" if chain.carbonyl else "no carbonyl"
+        return Outcome("negative", why)
+    if chain.carbons < 5:
+        return Outcome("negative", f"a {chain.carbons}-carbon ketose is too short to close a furan ring")
+    needs = {1: ("CH2OH",), 3: ("CHOH",), 4: ("CHOH",), 5: ("CHOH", "CH2OH")}
+    missing = [k for k, ok in needs.items() if chain.groups[k - 1] not in ok]
+    if missing:
+        where = ", ".join(f"C-{k}" for k in missing)
+        return Outcome("negative", f"no OH at {where}, so no 2-furaldehyde can form")
+    product = "furfural" if chain.carbons == 5 else "a 5-(hydroxyalkyl)furfural"
+    return Outcome("positive", f"the ketose dehydrates quickly to {product}, which gives the red resorcinol dye")
+
+
 def aldonic_acid(chain: Chain) -> Chain | NotApplicable:
     """Bromine-water product: C-1 aldehyde to carboxylic acid."""
     if chain.carbonyl != "aldose":
@@ -62,13 +176,62 @@ def aldonic_acid(chain: Chain) -> Chain | NotApplicable:
     return chain.replace(1, "COOH")
 
 
+def _lactone_smiles(acid: Chain, position: int) -> str:
+    """Close the ester ring from C-1 of ``acid`` onto O-``position``."""
+    with quiet_rdkit():
+        mol = Chem.MolFromSmiles(_write(acid, None))  # atoms in writing order, C-1 first
+    c1 = next(a.GetIdx() for a in mol.GetAtoms() if a.GetSymbol() == "C")
+    order = [c1]
+    while len(order) < position:
+        nxt = [n.GetIdx() for n in mol.GetAtomWithIdx(order[-1]).GetNeighbors() if n.GetSymbol() == "C"]
+        order.append(next(i for i in nxt if i not in order))
+
+    def free_oxygen(idx: int, order_: float) -> int:
+        atom = mol.GetAtomWithIdx(idx)
+        return next(
+            n.GetIdx()
+            for n in atom.GetNeighbors()
+            if n.GetSymbol() == "O"
+            and n.GetDegree() == 1
+            and mol.GetBondBetweenAtoms(idx, n.GetIdx()).GetBondTypeAsDouble() == order_
+        )
+
+    rw = Chem.RWMol(mol)
+    rw.AddBond(c1, free_oxygen(order[-1], 1.0), Chem.BondType.SINGLE)
+    rw.RemoveAtom(free_oxygen(c1, 1.0))
+    out = rw.GetMol()
+    Chem.SanitizeMol(out)
+    return canonical(Chem.MolToSmiles(out))
+
+
+def lactones(chain: Chain) -> tuple[Lactone, ...] | NotApplicable:
+    """The lactones the aldonic acid of ``chain`` can form (1,4 gamma and/or 1,5 delta).
+
+    A ring needs a free OH on C-4 (gamma) or C-5 (delta); deoxy or amino at
+    that carbon rules it out (an amine would give a lactam instead).
+    """
+    acid = aldonic_acid(chain)
+    if isinstance(acid, NotApplicable):
+        return acid
+    out = tuple(
+        Lactone(k, _lactone_smiles(acid, k))
+        for k in (4, 5)
+        if k <= acid.carbons and acid.groups[k - 1] in ("CHOH", "CH2OH")
+    )
+    if not out:
+        return NotApplicable("no OH at C-4 or C-5, so the aldonic acid cannot close a gamma or delta lactone")
+    return out
+
+
 def aldaric_acid(chain: Chain) -> Chain | NotApplicable:
     """Nitric-acid product: both chain ends to carboxylic acids."""
     if chain.carbonyl != "aldose":
-        return NotApplicable("nitric acid cleaves a ketose; no aldaric acid forms")
+        return NotApplicable("nitric acid cleaves a ketose's chain next to the carbonyl; no aldaric acid forms")
     last = chain.groups[-1]
     if last == "CH3":
-        return NotApplicable("the terminal CH3 of a deoxy sugar is not oxidised; no diacid forms")
+        return NotApplicable(
+            "the terminal CH3 of a deoxy sugar is not oxidised by nitric acid; no diacid (aldaric acid) forms"
+        )
     if last not in ("CH2OH", "COOH"):
         return NotApplicable(f"the terminal {last} cannot become a carboxylic acid")
     out = chain.replace(1, "COOH")
@@ -128,9 +291,20 @@ def shorten(chain: Chain) -> Chain | NotApplicable:
 
 
 def is_optically_active(products: Chain | tuple[Chain, ...]) -> bool:
-    """True when any product differs from its mirror image."""
+    """True when the product (mixture) rotates plane-polarised light.
+
+    One product: active unless it is superimposable on its mirror image
+    (meso or achiral). Two products (the C-2 epimeric alditols of a ketose):
+    active if either is, except when the two are each other's mirror image;
+    that happens only for a ketose with no stereocentre (e.g. 1-deoxy
+    glycerone), whose achiral carbonyl is attacked equally from both faces,
+    giving a racemate [common practice].
+    """
     items = products if isinstance(products, tuple) else (products,)
-    return any(not is_achiral(to_smiles(p)) for p in items)
+    found = {to_smiles(p) for p in items}
+    if len(found) > 1 and {mirror_smiles(s) for s in found} == found:
+        return False
+    return any(not is_achiral(s) for s in found)
 
 
 def relation(smiles_a: str, smiles_b: str) -> str:

@@ -1,0 +1,204 @@
+"""The cached prediction record, its JSON form, and properties over the whole catalogue."""
+
+from __future__ import annotations
+
+import dataclasses
+import json
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from workbench.chem import LEFT, RIGHT, Chain, Scope, catalogue, resolve, to_smiles
+from workbench.chem.predictions import PRODUCT_REACTIONS, predict, predictions_json, product_relation
+from workbench.chem.reactions import NotApplicable, relation
+from workbench.chem.smiles import is_achiral, mirror_smiles
+from workbench.cli import main
+from workbench.errors import ObservationError
+
+EVERYTHING = catalogue(Scope(carbons=tuple(range(3, 10)), modifications=("any",)))
+FLIP = {RIGHT: LEFT, LEFT: RIGHT}
+
+CONTRACT_KEYS = {
+    "aldaric_acid",
+    "aldonic_acid",
+    "alditol",
+    "osazone",
+    "bromine_water",
+    "reducing_test",
+    "periodate",
+    "chain_extension",
+    "chain_shortening",
+}
+
+
+def test_prediction_is_cached_and_frozen():
+    chain = resolve("D-glucose")
+    record = predict(chain)
+    assert predict(resolve("D-glucose")) is record
+    with pytest.raises(dataclasses.FrozenInstanceError):
+        record.osazone = "C"  # type: ignore[misc]
+
+
+def test_json_has_the_contract_keys_and_is_fresh():
+    data = predictions_json(resolve("D-glucose"))
+    assert CONTRACT_KEYS <= set(data)
+    json.dumps(data)  # plain data only
+    data["periodate"] = None
+    assert predictions_json(resolve("D-glucose"))["periodate"] is not None
+
+
+def test_json_for_d_glucose():
+    data = predictions_json(resolve("D-glucose"))
+    # DESIGN.md key shapes; values: textbook facts (Carey ch. 25) [common practice]
+    assert data["aldaric_acid"]["optically_active"] is True
+    assert "1,5-lactone (delta)" in data["aldonic_acid"]["lactone"]
+    assert data["alditol"]["optically_active"] is True and len(data["alditol"]["smiles"]) == 1
+    assert data["bromine_water"] == {"result": "oxidised"}
+    assert data["reducing_test"] == {"result": "positive"}
+    # Kiliani-Fischer on D-glucose: D-glycero-D-gulo- and D-glycero-D-ido-heptose [from memory]
+    assert data["chain_extension"] == {"products": ["D-glycero-D-gulo-heptose", "D-glycero-D-ido-heptose"]}
+    assert data["chain_shortening"] == {"product": "D-arabinose"}
+    # periodate: REFERENCE_VALUES.md [common practice; Jackson and Hudson 1937, from memory]
+    assert data["periodate"]["free"] == {"periodate": 5, "formic_acid": 5, "formaldehyde": 1, "co2": 0}
+    assert data["periodate"]["alditol"] == {"periodate": 5, "formic_acid": 4, "formaldehyde": 2, "co2": 0}
+    assert data["periodate"]["methyl_pyranoside"] == {"periodate": 2, "formic_acid": 1, "formaldehyde": 0, "co2": 0}
+    assert data["periodate"]["methyl_furanoside"] == {"periodate": 2, "formic_acid": 0, "formaldehyde": 1, "co2": 0}
+
+
+def test_json_for_a_ketose_and_a_triose():
+    fructose = predictions_json(resolve("D-fructose"))
+    # a ketose gives no aldaric or aldonic acid, two alditols (DESIGN.md; Carey ch. 25)
+    assert fructose["aldaric_acid"] is None and fructose["aldonic_acid"] is None
+    assert len(fructose["alditol"]["smiles"]) == 2
+    assert fructose["bromine_water"] == {"result": "unchanged"}
+    assert fructose["reducing_test"] == {"result": "positive"}
+    assert fructose["ketose_test"] == {"result": "positive"}
+    assert fructose["chain_extension"] is None and fructose["chain_shortening"] is None
+    assert "aldaric_acid" in fructose["not_applicable"]
+    triose = predictions_json(resolve("D-glyceraldehyde"))
+    # a triose cannot close a furanose or pyranose ring [common practice]
+    assert triose["periodate"]["methyl_pyranoside"] is None
+    assert triose["periodate"]["methyl_furanoside"] is None
+    assert "too short" in triose["not_applicable"]["periodate.methyl_alpha_furanoside"]
+
+
+def test_cli_predict_json(capsys):
+    assert main(["predict", "D-galactose", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    # galactaric (mucic) acid and galactitol are meso (Carey ch. 25) [from memory]
+    assert data["predictions"]["aldaric_acid"]["optically_active"] is False
+    assert data["predictions"]["alditol"]["optically_active"] is False
+
+
+def test_product_relations_between_candidates():
+    glc, gul, fru = resolve("D-glucose"), resolve("L-gulose"), resolve("D-fructose")
+    # D-glucitol = L-gulitol; D-glucose and D-fructose share the osazone (Carey ch. 25)
+    assert product_relation(glc, gul, "alditol") == "identical"
+    assert product_relation(glc, fru, "osazone") == "identical"
+    assert product_relation(glc, fru, "alditol") == "identical"  # D-glucitol from both
+    assert product_relation(glc, resolve("L-glucose"), "aldaric_acid") == "enantiomeric"
+    assert product_relation(glc, resolve("D-mannose"), "aldaric_acid") == "different"
+    result = product_relation(glc, fru, "aldaric_acid")
+    assert isinstance(result, NotApplicable) and "ketose" in result.reason
+
+
+def test_unknown_reaction_word():
+    with pytest.raises(ObservationError):
+        predict(resolve("D-glucose")).products("ozonolysis")
+
+
+def test_every_reaction_word_gives_a_set():
+    record = predict(resolve("D-glucose"))
+    assert all(isinstance(record.products(r), frozenset) for r in PRODUCT_REACTIONS)
+
+
+# ------------------------------------------------------------------ properties
+PROPERTY = settings(max_examples=200, deadline=None)
+
+
+@PROPERTY
+@given(st.sampled_from(EVERYTHING))
+def test_aldaric_acids_of_enantiomers_are_enantiomers_or_both_meso(chain):
+    a, b = predict(chain).aldaric_acid, predict(chain.mirror()).aldaric_acid
+    if a is None:
+        assert b is None
+        return
+    # mirror-image substrates give mirror-image products [common practice]
+    assert mirror_smiles(a) == b
+    if a == b:
+        assert is_achiral(a) and not predict(chain).aldaric_acid_active
+
+
+def _c2_epimer(chain: Chain) -> Chain | None:
+    if chain.carbonyl != "aldose" or chain.groups[1] not in ("CHOH", "CHNH2"):
+        return None
+    return chain.replace(2, chain.groups[1], FLIP[chain.sides[1]])
+
+
+def _ketose_partner(chain: Chain) -> Chain | None:
+    if chain.carbonyl != "aldose" or chain.groups[1] != "CHOH":
+        return None
+    return Chain(("CH2OH", "CO") + chain.groups[2:], (None, None) + chain.sides[2:])
+
+
+@PROPERTY
+@given(st.sampled_from(EVERYTHING))
+def test_c2_epimers_share_an_osazone(chain):
+    # osazone formation destroys C-1/C-2 configuration (Carey ch. 25) [common practice]
+    for partner in (_c2_epimer(chain), _ketose_partner(chain)):
+        if partner is not None:
+            assert predict(partner).osazone == predict(chain).osazone is not None
+
+
+@PROPERTY
+@given(st.sampled_from(EVERYTHING))
+def test_alditols_of_a_ketose_are_c2_epimers(chain):
+    if chain.carbonyl != "ketose":
+        return
+    expected = {to_smiles(chain.replace(2, "CHOH", side)) for side in (RIGHT, LEFT)}
+    # borohydride attacks either face of C-2 (Carey ch. 25) [common practice]
+    assert set(predict(chain).alditols) == expected
+    if len(expected) == 2:
+        first, second = sorted(expected)
+        # epimers are diastereomers; with no other stereocentre they are enantiomers
+        achiral_ketose = not chain.stereocentres
+        assert relation(first, second) == ("enantiomeric" if achiral_ketose else "different")
+        # a racemate from an achiral ketose is optically inactive [common practice]
+        if achiral_ketose:
+            assert predict(chain).alditol_active is False
+
+
+@PROPERTY
+@given(st.sampled_from(EVERYTHING))
+def test_optical_activity_means_not_superimposable_on_mirror_image(chain):
+    record = predict(chain)
+    # DESIGN.md: inactive = the product (mixture) is identical to its mirror image
+    for products, active in (
+        (record.alditols, record.alditol_active),
+        ((record.aldaric_acid,), record.aldaric_acid_active),
+    ):
+        if products and products[0]:
+            assert active == ({mirror_smiles(s) for s in products} != set(products))
+
+
+@PROPERTY
+@given(st.sampled_from(EVERYTHING))
+def test_periodate_carbon_balance_over_catalogue(chain):
+    for key, result in predict(chain).periodate:
+        if result is None:
+            assert predict(chain).reason(f"periodate.{key}")
+            continue
+        methyl = 1 if key.startswith("methyl") else 0
+        # carbon is conserved: chain length plus the glycoside's methyl [common practice]
+        assert result.carbons_out == chain.carbons + methyl
+
+
+@PROPERTY
+@given(st.sampled_from(EVERYTHING), st.sampled_from(EVERYTHING), st.sampled_from(PRODUCT_REACTIONS[:4]))
+def test_product_relation_is_symmetric(a, b, reaction):
+    forward, backward = product_relation(a, b, reaction), product_relation(b, a, reaction)
+    if isinstance(forward, NotApplicable):
+        assert isinstance(backward, NotApplicable)
+    else:
+        assert forward == backward
