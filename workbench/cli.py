@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import argparse
 import json
+import os
 import sys
 from collections.abc import Callable, Sequence
 
@@ -108,12 +109,105 @@ def _cmd_plan(args: argparse.Namespace) -> int:
 
 # ----------------------------------------------------------------- demo
 def _cmd_demo(args: argparse.Namespace) -> int:
-    from workbench.chem.catalogue import DEFAULT_SCOPE, Scope, catalogue
+    from workbench.data import DEMO_PROJECT, data_path
+    from workbench.evidence.engine import solve
+    from workbench.evidence.project import project_from_dict
+    from workbench.report_text import solution_json, solution_text
 
-    print("stereosieve demo: a tour of the catalogue (the demo project arrives with the engine)")
-    print(f"default scope: {len(catalogue(DEFAULT_SCOPE))} candidates")
-    big = Scope(carbons=(3, 4, 5, 6, 7, 8, 9), modifications=("any",))
-    print(f"3-9 carbons, any modification: {len(catalogue(big))} candidates")
+    path = data_path(DEMO_PROJECT)
+    project = project_from_dict(json.loads(path.read_text(encoding="utf-8")), source=str(path))
+    solution = solve(project)
+    if args.json:
+        _print_json(solution_json(solution))
+    else:
+        print("stereosieve demo: an invented project, solved step by step\n")
+        print(solution_text(solution))
+        print("\nTry it yourself: 'stereosieve lab' opens this project in the notebook workbench.")
+    return EXIT_OK
+
+
+# ----------------------------------------------------------------- report
+def _cmd_report(args: argparse.Namespace) -> int:
+    from workbench.evidence.engine import solve
+    from workbench.evidence.project import load_project
+    from workbench.report import render_report, write_report
+
+    project = load_project(args.project)
+    solution = solve(project, disabled=tuple(args.without or ()))
+    plan_result = None
+    if not args.no_plan:
+        from workbench.evidence.planner import plan
+
+        plan_result = plan(project, solution=solution, limit=args.top)
+    target = write_report(render_report(project, solution, plan_result), args.output, protect=(args.project,))
+    print(f"report written to {target}")
+    if solution.contradictory:
+        sets = "; ".join("{" + ", ".join(c) + "}" for c in solution.conflicts)
+        print(f"stereosieve: the evidence is contradictory: {sets} (the report explains the conflict)", file=sys.stderr)
+        return EXIT_CONTRADICTION
+    return EXIT_OK
+
+
+# ----------------------------------------------------------------- lab
+def _cmd_lab(args: argparse.Namespace) -> int:
+    from workbench.ui.notebook import launch_lab, prepare_lab
+
+    files = prepare_lab(args.project, directory=args.dir)
+    for path in files.created:
+        print(f"created {path}")
+    print(f"project  {files.project}")
+    print(f"notebook {files.notebook}")
+    if args.prepare_only:
+        return EXIT_OK
+    code = launch_lab(files.notebook, browser=not args.no_browser)
+    return EXIT_OK if code == 0 else EXIT_BUG
+
+
+# ----------------------------------------------------------------- mutarotation
+def _cmd_mutarotation(args: argparse.Namespace) -> int:
+    from workbench.conformers.curve_file import read_curve
+    from workbench.conformers.mutarotation import fit_mutarotation
+    from workbench.errors import FitError
+
+    if (args.alpha is None) != (args.beta is None):
+        raise FitError("give both --alpha and --beta (the pure anomers' rotations), or --sugar NAME")
+    if args.sugar and args.alpha is not None:
+        raise FitError("give either --sugar or --alpha/--beta, not both")
+    alpha, beta, rotation_source, sugar = args.alpha, args.beta, None, None
+    if args.sugar:
+        from workbench.chem.names import display_name
+        from workbench.chem.parse import resolve
+        from workbench.conformers.polarimetry import published_rotation
+
+        chain = resolve(args.sugar)
+        sugar = display_name(chain)
+        record = published_rotation(chain)
+        if record is not None and record.alpha is not None and record.beta is not None:
+            alpha, beta, rotation_source = record.alpha, record.beta, record.source
+    curve = read_curve(args.curve)
+    fit = fit_mutarotation(curve.times_min, curve.rotations, alpha=alpha, beta=beta)
+    data = fit.to_dict()
+    data["file"] = curve.source
+    if sugar is not None:
+        data["sugar"] = sugar
+        data["rotation_source"] = rotation_source
+    if args.json:
+        _print_json(data)
+        return EXIT_OK
+    print(f"mutarotation fit of {curve.source} ({fit.points} points, first-order approach to equilibrium)")
+    print(f"  rate_constant_per_min  {fit.rate_constant_per_min:.5g}")
+    print(f"  half_life_min          {fit.half_life_min:.4g}")
+    print(f"  initial_rotation       {fit.initial_rotation:.2f}")
+    print(f"  equilibrium_rotation   {fit.equilibrium_rotation:.2f}")
+    print(f"  rmse                   {fit.rmse:.3g}")
+    if fit.beta_fraction is not None:
+        print(f"  beta_fraction          {fit.beta_fraction:.3f}  (two-state model, alpha {alpha:+.1f}, beta {beta:+.1f})")
+        if rotation_source:
+            print(f"  anomer rotations from  {rotation_source}")
+    elif sugar is not None:
+        print(f"  beta_fraction          unknown: no published alpha and beta rotations for {sugar}")
+    else:
+        print("  beta_fraction          unknown: give --alpha and --beta, or --sugar NAME")
     return EXIT_OK
 
 
@@ -126,6 +220,9 @@ _HANDLERS: dict[str, Handler] = {
     "solve": _cmd_solve,
     "validate": _cmd_validate,
     "plan": _cmd_plan,
+    "mutarotation": _cmd_mutarotation,
+    "report": _cmd_report,
+    "lab": _cmd_lab,
 }
 
 
@@ -158,8 +255,25 @@ def build_parser() -> argparse.ArgumentParser:
     pl.add_argument("--lookahead", action="store_true", help="also score pairs of experiments (two steps)")
     pl.add_argument("--rank", choices=["value", "information"], default="value", help="bits per effort, or bits alone")
     pl.add_argument("--top", type=int, default=15, help="how many experiments to list")
+    mu = sub.add_parser("mutarotation", help="fit a polarimetry time course (first-order approach to equilibrium)")
+    mu.add_argument("curve", help="CSV file with columns time_min,specific_rotation")
+    mu.add_argument("--alpha", type=float, metavar="DEG", help="[alpha]D of the pure alpha anomer")
+    mu.add_argument("--beta", type=float, metavar="DEG", help="[alpha]D of the pure beta anomer")
+    mu.add_argument("--sugar", metavar="NAME", help="take the anomers' rotations from the published table")
+    mu.add_argument("--json", action="store_true", help="print JSON")
     d = sub.add_parser("demo", help="run the bundled demo project headless and print the narrowing")
     d.add_argument("--json", action="store_true")
+    r = sub.add_parser("report", help="write a self-contained HTML report of a project")
+    r.add_argument("project", help="project file (JSON)")
+    r.add_argument("-o", "--output", required=True, metavar="FILE.html", help="where to write the report")
+    r.add_argument("--without", nargs="+", metavar="ID", help="switch these observations off (what-if)")
+    r.add_argument("--no-plan", action="store_true", help="leave out the next-experiment ranking")
+    r.add_argument("--top", type=int, default=8, help="how many next experiments to list")
+    lab = sub.add_parser("lab", help="open JupyterLab on the workbench notebook for a project (default: the demo)")
+    lab.add_argument("project", nargs="?", help="project file (JSON); default: a copy of the demo project here")
+    lab.add_argument("--dir", default=".", help="where to put the demo copy when no project is given")
+    lab.add_argument("--prepare-only", action="store_true", help="write the notebook, do not start JupyterLab")
+    lab.add_argument("--no-browser", action="store_true", help="start JupyterLab without opening a browser")
     return parser
 
 
@@ -172,6 +286,9 @@ def main(argv: Sequence[str] | None = None) -> int:
         return int(exc.code or 0)
     try:
         return _HANDLERS[args.command](args)
+    except BrokenPipeError:  # output piped into `head` and closed early: not an error of the input
+        sys.stdout = open(os.devnull, "w")  # noqa: SIM115 - keep Python from complaining at exit
+        return EXIT_OK
     except ContradictionError as err:
         print(f"stereosieve: {err}", file=sys.stderr)
         return EXIT_CONTRADICTION

@@ -15,6 +15,8 @@ __all__ = [
     "ProjectError",
     "ObservationError",
     "ContradictionError",
+    "CurveFileError",
+    "FitError",
 ]
 
 
@@ -77,3 +79,18 @@ class ContradictionError(WorkbenchError):
         self.conflicts = conflicts
         sets = "; ".join("{" + ", ".join(c) + "}" for c in conflicts)
         super().__init__(f"the evidence is contradictory: {sets}")
+
+
+class CurveFileError(WorkbenchError, ValueError):
+    """A measurement file (e.g. a polarimetry CSV) that cannot be read; names the file and line."""
+
+    def __init__(self, source: str, line: int | None, problem: str) -> None:
+        self.source = source
+        self.line = line
+        self.problem = problem
+        where = f"{source}, line {line}" if line is not None else source
+        super().__init__(f"{where}: {problem}")
+
+
+class FitError(WorkbenchError, ValueError):
+    """Data that cannot be fitted by the model asked for (too few points, no change, no convergence)."""

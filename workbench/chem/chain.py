@@ -205,6 +205,11 @@ class Chain:
     def __str__(self) -> str:
         return self.pattern
 
+    def _repr_svg_(self) -> str:
+        from workbench.display.fischer import chain_svg
+
+        return chain_svg(self)
+
     @classmethod
     def from_pattern(cls, text: str) -> Chain:
         """Inverse of :attr:`pattern`."""

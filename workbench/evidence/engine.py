@@ -67,6 +67,11 @@ class Solution:
         """True when no assignment satisfies all the (enabled) evidence."""
         return bool(self.conflicts)
 
+    def _repr_html_(self) -> str:
+        from workbench.display.board import solution_html
+
+        return solution_html(self)
+
     def eliminated_by(self, uid: str) -> dict[Chain, str]:
         """For each eliminated candidate of ``uid``, the id of the observation that removed it."""
         out: dict[Chain, str] = {}

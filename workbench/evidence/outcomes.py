@@ -180,7 +180,8 @@ def outcome_label(kind: str, value: Any) -> str:
         return "optically active" if value else "optically inactive (meso)"
     if kind == "periodate":
         p, f, h, c = value
-        return f"IO4- {p:g}, HCOOH {f:g}, HCHO {h:g}, CO2 {c:g}"
+        co2 = "" if c is None else f", CO2 {c:g}"
+        return f"IO4- {p:g}, HCOOH {f:g}, HCHO {h:g}{co2}"
     if isinstance(value, float):
         return f"{value:.2f}"
     return str(value)

@@ -1,0 +1,105 @@
+"""Every sample project (and the packaged demo) solves as intended; all of them say they are invented."""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import pytest
+
+from workbench.chem.names import display_name
+from workbench.cli import main
+from workbench.data import DEMO_PROJECT, data_path
+from workbench.evidence import load_project, solve
+
+SAMPLES = Path(__file__).resolve().parent.parent / "sample_projects"
+
+
+def _names(solution, uid):
+    return [display_name(c) for c in solution.survivors[uid]]
+
+
+def test_red_seaweed_deoxyhexose_is_l_fucose():
+    solution = solve(load_project(SAMPLES / "red_seaweed_deoxyhexose.json"))
+    # Methyl 6-deoxyhexopyranoside: 2 IO4-, 1 HCOOH (methyl hexopyranoside, REFERENCE_VALUES: Jackson and
+    # Hudson 1937 [memory]); alpha-L-fucopyranose J2,3 about 10 Hz and J3,4 about 3.4 Hz, the galacto pattern
+    # of alpha-galactopyranoses (REFERENCE_VALUES couplings [memory, textbook ranges]).
+    assert _names(solution, "U1") == ["L-fucose"]
+    assert not solution.contradictory
+
+
+def test_rare_pentose_is_l_ribose_and_its_kiliani_pair_l_allose_and_l_altrose():
+    solution = solve(load_project(SAMPLES / "rare_pentose_epimerisation.json"))
+    # C-2 epimers share the osazone, so a pentose with L-arabinose's osazone that is not L-arabinose is
+    # L-ribose; Kiliani-Fischer of D-ribose gives D-allose + D-altrose, allaric acid is meso
+    # (REFERENCE_VALUES: Carey ch. 25; Collins and Ferrier 1995 [memory]); here the L series.
+    assert _names(solution, "P") == ["L-ribose"]
+    assert _names(solution, "H1") == ["L-allose"]
+    assert _names(solution, "H2") == ["L-altrose"]
+
+
+def test_gum_exudate_gives_arabinose_galactose_rhamnose_glucuronic_acid():
+    solution = solve(load_project(SAMPLES / "gum_exudate_four_sugars.json"))
+    # Mucic (galactaric) acid is meso and comes from D- and L-galactose; D-glucaric = L-gularic acid
+    # (REFERENCE_VALUES: Carey ch. 25 [memory]); arabinaric acid is optically active, ribaric meso.
+    assert _names(solution, "A") == ["L-arabinose"]
+    assert _names(solution, "B") == ["D-galactose"]
+    assert _names(solution, "C") == ["L-rhamnose"]
+    assert _names(solution, "D") == ["D-glucuronic acid"]
+
+
+def test_contradictory_project_names_the_two_records_that_clash():
+    solution = solve(load_project(SAMPLES / "contradictory_hexose_records.json"))
+    # For an aldohexose the alditol and the aldaric acid are both meso or both chiral (allitol/allaric,
+    # galactitol/galactaric; REFERENCE_VALUES [memory]), so E3 and E4 cannot both hold.
+    assert solution.contradictory
+    assert [tuple(c) for c in solution.conflicts] == [("E3", "E4")]
+    assert sorted(display_name(c) for c in solution.relief["E4"]["X"]) == ["D-allose", "D-galactose"]
+    assert len(solution.relief["E3"]["X"]) == 6
+
+
+def test_demo_project_is_d_galactose():
+    project = load_project(data_path(DEMO_PROJECT))
+    solution = solve(project)
+    # D-galactose: meso galactaric acid, D series, same osazone as D-tagatose (REFERENCE_VALUES: osazones).
+    assert _names(solution, "S1") == ["D-galactose"]
+    assert [s.counts["S1"] for s in solution.trail] == [93, 62, 16, 4, 2, 1]
+
+
+@pytest.mark.parametrize("path", sorted(SAMPLES.glob("*.json")) + [data_path(DEMO_PROJECT)], ids=lambda p: p.name)
+def test_every_project_is_marked_invented(path):
+    data = json.loads(path.read_text(encoding="utf-8"))
+    assert "invented" in data["title"].lower()
+    for obs in data["observations"]:
+        assert "invented" in obs.get("note", "").lower(), obs["id"]
+
+
+@pytest.mark.parametrize("path", sorted(SAMPLES.glob("*.json")), ids=lambda p: p.name)
+def test_every_sample_solves_from_the_command_line(path, capsys):
+    code = main(["solve", str(path)])
+    out = capsys.readouterr().out
+    assert code == (3 if "contradictory" in path.name else 0)
+    assert "candidates remain" in out
+
+
+def test_at_least_three_solvable_samples_and_one_contradictory():
+    solvable, contradictory = 0, 0
+    for path in SAMPLES.glob("*.json"):
+        solution = solve(load_project(path))
+        if solution.contradictory:
+            contradictory += 1
+        elif all(len(v) == 1 for v in solution.survivors.values()):
+            solvable += 1
+    assert solvable >= 3 and contradictory >= 1
+
+
+def test_demo_command_prints_the_narrowing_and_exits_zero(capsys):
+    assert main(["demo"]) == 0
+    out = capsys.readouterr().out
+    assert "Narrowing" in out and "D-galactose" in out and "invented" in out.lower()
+
+
+def test_demo_command_json(capsys):
+    assert main(["demo", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert [s["name"] for s in data["unknowns"]["S1"]["survivors"]] == ["D-galactose"]

@@ -1,0 +1,90 @@
+"""The 3D chair panel, tested on its state: chosen survivors, ring form, chair, marks and static copy."""
+
+from __future__ import annotations
+
+import shutil
+
+import pytest
+
+from workbench.chem import resolve
+from workbench.data import DEMO_PROJECT, data_path
+from workbench.ui.chairs import ChairPanel, chair_views, view_3d
+from workbench.ui.session import Session
+
+
+@pytest.fixture()
+def two_left(tmp_path):
+    target = tmp_path / "demo.json"
+    shutil.copyfile(data_path(DEMO_PROJECT), target)
+    session = Session.open(target)
+    session.set_enabled("E6", False)  # D-allose and D-galactose
+    return session
+
+
+def test_beta_d_glucopyranose_4c1_has_every_heavy_group_equatorial():
+    # beta-D-glucopyranose in 4C1: all substituents equatorial (Angyal 1969; textbook fact [memory]).
+    views, notes = chair_views([resolve("D-glucose")], "beta_pyranose", "A")
+    (v,) = views
+    assert notes == [] and v.axial == ()
+    assert sorted(lab for lab, _ in v.equatorial) == ["C6", "O1", "O2", "O3", "O4"]
+    assert v.shape == "4C1"
+
+
+def test_alpha_d_mannopyranose_4c1_has_axial_o1_and_o2():
+    # alpha-D-mannopyranose 4C1: O-1 and O-2 axial (textbook fact [memory]; Angyal 1969).
+    views, _ = chair_views([resolve("D-mannose")], "alpha_pyranose", "A")
+    assert sorted(lab for lab, _ in views[0].axial) == ["O1", "O2"]
+
+
+def test_the_other_chair_puts_the_groups_axial():
+    views, _ = chair_views([resolve("D-glucose")], "beta_pyranose", "B")
+    assert views[0].shape == "1C4" and len(views[0].axial) == 5
+
+
+def test_forms_a_sugar_cannot_adopt_are_noted_not_drawn():
+    views, notes = chair_views([resolve("D-erythrose"), resolve("D-glucose")], "alpha_pyranose", None)
+    assert [v.name for v in views] == ["D-glucose"]
+    assert notes == ["D-erythrose has no alpha pyranose form"]
+
+
+def test_the_3d_viewer_has_one_cell_per_survivor_with_marks():
+    views, _ = chair_views([resolve("D-glucose"), resolve("D-mannose")], "alpha_pyranose", "A")
+    viewer = view_3d(views)
+    js = viewer.startjs
+    assert js.count("addModel") == 2 and "O1 ax" in js and "C6 eq" in js
+
+
+def test_panel_defaults_to_the_first_survivors_and_shows_them(two_left):
+    panel = ChairPanel(two_left)
+    assert panel.unknown.value == "S1"
+    assert panel.survivors.value == ("D-allose", "D-galactose")
+    panel.form.value = "alpha_pyranose"
+    panel.chair.value = "A"
+    panel.show_button.click()
+    assert [v.name for v in panel.views] == ["D-allose", "D-galactose"]
+    html = panel.facts.value
+    assert html.count('class="ss-chair"') == 2  # flat chairs drawn for the static copy
+    assert "axial: O1" in html  # alpha anomers in 4C1: O-1 axial
+    assert "Preferred chair" in html and "H1-H2" in html
+    assert panel.snapshot_html() == html
+
+
+def test_panel_follows_the_evidence(two_left):
+    panel = ChairPanel(two_left)
+    two_left.set_enabled("E6", True)
+    assert list(panel.survivors.options) == ["D-galactose"] and panel.survivors.value == ("D-galactose",)
+
+
+def test_panel_without_selection_says_what_to_do(two_left):
+    panel = ChairPanel(two_left)
+    panel.survivors.value = ()
+    panel.show_button.click()
+    assert "Choose one or more survivors" in panel.notices.text
+
+
+def test_panel_furanose_has_no_chair_but_a_shape(two_left):
+    panel = ChairPanel(two_left)
+    panel.form.value = "beta_furanose"
+    panel.show_button.click()
+    assert all(v.chair is None for v in panel.views)
+    assert 'class="ss-chair"' not in panel.facts.value and "Furanose couplings" in panel.facts.value

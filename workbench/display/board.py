@@ -1,0 +1,108 @@
+"""The candidate board as static HTML: survivors drawn as Fischer projections, the narrowing, the eliminated.
+
+:func:`board_html` renders one unknown; :func:`solution_html` renders a whole
+solution (what ``Solution`` shows in a notebook and what the report embeds).
+Stereocentres on which the survivors still disagree are ringed in amber.
+"""
+
+from __future__ import annotations
+
+from workbench.chem.names import display_name, systematic_name
+from workbench.display.chart import narrowing_chart
+from workbench.display.fischer import disputed_centres, fischer_svg
+from workbench.display.palette import ACCENT, CAUTION, FONT, INK, MUTED, PAPER, RULE, esc
+from workbench.display.tables import conflicts_html, eliminated_html, ledger_html, scope_text, trail_html
+
+__all__ = ["survivor_card", "survivors_html", "board_html", "solution_html"]
+
+
+def survivor_card(chain, open_centres=(), flags=()) -> str:
+    """One candidate as a card: Fischer projection, name, systematic name, flags."""
+    name = display_name(chain)
+    systematic = systematic_name(chain)
+    sub = "" if systematic == name else f'<div style="color:{MUTED};font-size:11px">{esc(systematic)}</div>'
+    flag_html = "".join(f'<div style="color:{CAUTION};font-size:11px">&#9873; {esc(f)}</div>' for f in flags)
+    return (
+        f'<div class="ss-card" data-name="{esc(name)}" style="display:inline-block;vertical-align:top;margin:4px;'
+        f"padding:4px 6px 6px 6px;border:1px solid {RULE};border-radius:6px;background:{PAPER};"
+        f'text-align:center;max-width:230px">'
+        f"{fischer_svg(chain, open_centres=open_centres)}"
+        f'<div style="font-weight:600;font-size:13px;color:{INK}">{esc(name)}</div>{sub}{flag_html}</div>'
+    )
+
+
+def survivors_html(solution, uid: str, limit: int = 24) -> str:
+    """The survivors of ``uid`` as cards (at most ``limit`` drawn; the rest named)."""
+    survivors = solution.survivors[uid]
+    if not survivors:
+        why = "the evidence is contradictory" if solution.contradictory else "no candidate fits"
+        return f'<p style="font-family:{FONT};color:{MUTED}">No candidate survives: {esc(why)}.</p>'
+    open_centres = disputed_centres(survivors)
+    flags = solution.flags.get(uid, {})
+    cards = "".join(survivor_card(c, open_centres, flags.get(c, ())) for c in survivors[:limit])
+    rest = survivors[limit:]
+    more = ""
+    if rest:
+        names = ", ".join(display_name(c) for c in rest[:60])
+        tail = f" ... (+{len(rest) - 60} more)" if len(rest) > 60 else ""
+        more = f'<p style="font-size:12px;color:{MUTED}">Also remaining ({len(rest)}): {esc(names)}{esc(tail)}</p>'
+    legend = ""
+    if open_centres:
+        where = ", ".join(f"C-{k}" for k in sorted(open_centres))
+        legend = (
+            f'<p style="font-size:12px;color:{MUTED};margin:2px 0">Ringed in amber: configuration still open '
+            f"({esc(where)}).</p>"
+        )
+    return f'<div class="ss-survivors" style="font-family:{FONT}">{legend}{cards}{more}</div>'
+
+
+def board_html(solution, uid: str, limit: int = 24, eliminated_open: bool = False) -> str:
+    """One unknown's board: heading with counts, narrowing chart, survivors, eliminated list.
+
+    ``eliminated_open`` unfolds the eliminated list (for print); in notebooks it starts folded.
+    """
+    unknown = solution.project.unknown(uid)
+    n_left = len(solution.survivors[uid])
+    total = solution.scope_counts[uid]
+    label = f" ({unknown.label})" if unknown.label else ""
+    gone = total - n_left
+    heading = (
+        f'<div style="font-size:15px;font-weight:600;color:{ACCENT}">{esc(uid)}{esc(label)}: '
+        f"{n_left} of {total} candidates remain</div>"
+        f'<div style="font-size:11.5px;color:{MUTED}">scope: {esc(scope_text(unknown.scope))}</div>'
+    )
+    eliminated = (
+        f'<details{" open" if eliminated_open else ""} style="margin:4px 0"><summary style="cursor:pointer;color:{ACCENT}">Eliminated candidates '
+        f"({gone}) with the observation that removed each</summary>{eliminated_html(solution, uid)}</details>"
+        if gone
+        else ""
+    )
+    return (
+        f'<div class="ss-board" data-unknown="{esc(uid)}" style="font-family:{FONT};color:{INK};margin:6px 0 14px 0">'
+        f"{heading}{narrowing_chart(solution, [uid])}{survivors_html(solution, uid, limit)}{eliminated}</div>"
+    )
+
+
+def solution_html(solution, limit: int = 24) -> str:
+    """A whole solution: conflicts first, then every unknown's board, the trail and the ledger."""
+    project = solution.project
+    title = esc(project.title or "(untitled project)")
+    parts = [
+        f'<div class="ss-solution" style="font-family:{FONT};color:{INK}">',
+        f'<div style="font-size:17px;font-weight:600;color:{ACCENT};margin-bottom:4px">{title}</div>',
+    ]
+    if solution.disabled:
+        parts.append(
+            f'<div style="color:{MUTED};font-size:12px">What-if: switched off {esc(", ".join(solution.disabled))}</div>'
+        )
+    parts.append(conflicts_html(solution))
+    for uid in project.unknown_ids:
+        parts.append(board_html(solution, uid, limit))
+    if len(project.unknown_ids) > 1:
+        parts.append(narrowing_chart(solution, title="All unknowns"))
+    parts.append(f'<div style="font-weight:600;color:{ACCENT};margin-top:8px">Narrowing step by step</div>')
+    parts.append(trail_html(solution))
+    parts.append(f'<div style="font-weight:600;color:{ACCENT};margin-top:8px">Evidence ledger</div>')
+    parts.append(ledger_html(project, solution))
+    parts.append("</div>")
+    return "".join(parts)
