@@ -155,7 +155,7 @@ def solution_text(solution) -> str:
                 if reasons.get(chain):
                     lines.append(f"    {display_name(chain)}: {reasons[chain]}")
             if len(gone) > 4:
-                lines.append(f"    ... and {len(gone) - 4} more for the same reason")
+                lines.append(f"    ... and {len(gone) - 4} more (solve --json lists every reason)")
     lines.append("")
     for uid in ids:
         u = project.unknown(uid)
