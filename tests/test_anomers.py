@@ -93,7 +93,8 @@ def test_returned_dicts_are_fresh_copies():
 
 
 def test_physical_json_works_for_every_chain_of_a_wide_scope():
-    chains = catalogue(Scope(carbons=(3, 4, 5, 6, 7, 8, 9), modifications=("any",)))
+    # D series only (enantiomers are checked above); trioses to nonoses, every modification.
+    chains = catalogue(Scope(carbons=(3, 4, 5, 6, 7, 8, 9), series=("D",), modifications=("any",)))
     for chain in chains:
         data = physical_json(chain)
         assert set(data) == {"anomers", "chairs", "couplings"}

@@ -146,6 +146,14 @@ def test_conformer_mol_for_display_has_one_3d_conformer():
     assert "V2000" in block and Chem.MolFromMolBlock(block, removeHs=False).GetNumAtoms() == mol.GetNumAtoms()
 
 
+def test_display_conformer_follows_angyal_not_mmff():
+    # alpha-D-allopyranose: Angyal's scheme prefers 4C1 (Angyal 1969 [memory]: Allp is 4C1);
+    # gas-phase MMFF94 may rank a hydrogen-bonded 1C4 lower. The view follows Angyal.
+    allose = resolve("D-allose")
+    assert ring_conformers(allose, ALPHA_P).best().shape == "4C1"
+    assert conformer_mol(allose, ALPHA_P).GetProp("shape") == "4C1"
+
+
 def test_furanose_conformers_are_envelopes_or_twists():
     found = ring_conformers(resolve("D-ribose"), RingForm("furanose", "beta"))
     for conf in found.conformers:
@@ -171,6 +179,16 @@ def test_chair_comparison_reports_angyal_and_mmff():
     assert cmp.angyal_preferred == cmp.mmff_preferred == "4C1"
     assert cmp.agree
     assert cmp.mmff_kcal["4C1"] == 0.0 and cmp.mmff_kcal["1C4"] > 0
+
+
+def test_anomer_comparison_reports_angyal_and_mmff():
+    from workbench.conformers import anomer_comparison
+
+    cmp = anomer_comparison(resolve("D-glucose"))
+    # Angyal 1969 [memory]: beta-D-glucopyranose favoured in water by 0.35 kcal/mol.
+    assert cmp.angyal_preferred == "beta"
+    assert cmp.angyal_kcal == pytest.approx(-0.35, abs=0.01)
+    assert isinstance(cmp.mmff_kcal, float)
 
 
 def test_fast_path_ring_torsion_matches_mmff_chairs():

@@ -66,6 +66,12 @@ def test_3d_path_agrees_with_fast_path_for_beta_glucopyranose():
     assert min(measured[p] for p in ("H2-H3", "H3-H4", "H4-H5")) > 8.0  # trans-diaxial, [memory] 9-10 Hz
 
 
+def test_3d_path_names_ch2_protons_like_the_fast_path():
+    fast = ring_couplings(resolve("D-xylose"))["beta_pyranose"]
+    measured = ring_couplings_3d(resolve("D-xylose"), BETA_P)
+    assert set(fast) == set(measured) == {"H1-H2", "H2-H3", "H3-H4", "H4-H5ax", "H4-H5eq"}
+
+
 def test_furanose_couplings_come_from_3d_conformers():
     got = ring_couplings_3d(resolve("D-ribose"), RingForm("furanose", "beta"))
     assert set(got) == {"H1-H2", "H2-H3", "H3-H4"}

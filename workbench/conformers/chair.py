@@ -52,7 +52,7 @@ DOWN = "down"
 BOND_LENGTH = 1.50  # angstrom; a mean of C-C (1.53) and C-O (1.43) for the ideal ring
 # Mean |ring torsion| (deg) of the MMFF94 chairs of the ten aldohexo- and aldopentopyranoses,
 # both anomers and both chairs, from workbench.conformers.conformer (our computation,
-# 54.2 +/- 4.3 deg; checked by tests/test_conformers.py).
+# 54.4 +/- 4.1 deg; checked by tests/test_conformers.py).
 PYRANOSE_RING_TORSION_DEG = 54.0
 
 

@@ -163,10 +163,17 @@ class RingConformers:
         return {c: chair_label(c, self.anomeric) for c in CHAIRS}
 
     def best(self, chair: str | None = None) -> Conformer:
-        """Lowest-energy conformer, optionally of one chair (``"4C1"``, ``"1C4"``, ``"A"`` or ``"B"``).
+        """The conformer to show: lowest MMFF94 energy of ``chair`` (``"4C1"``, ``"1C4"``, ``"A"``, ``"B"``).
 
-        A freely minimised conformer is preferred to a restrained one.
+        With ``chair`` None: for a pyranose, the chair Angyal's scheme prefers
+        (so the display agrees with the predictions even where MMFF94 prefers
+        the other chair); for a furanose, the lowest MMFF94 energy overall
+        (``conformers[0]`` is always the lowest MMFF94 energy). A freely
+        minimised conformer is preferred to a restrained one.
         """
+        if chair is None and self.form.ring == "pyranose":
+            a, b = chair_weights(ring_layout(self.chain, self.form))
+            chair = "A" if a >= b else "B"
         key = None if chair is None else (chair if chair in CHAIRS else chair_from_label(chair, self.anomeric))
         ranked = sorted(self.conformers, key=lambda c: (c.restrained, c.energy_kcal))
         for conf in ranked:
@@ -559,15 +566,11 @@ def conformer_mol(
     """An RDKit molecule (with hydrogens) holding one 3D conformer, for display.
 
     ``chair`` picks ``"4C1"``/``"1C4"`` (``"2C5"``/``"5C2"`` for 2-ketoses, or
-    ``"A"``/``"B"``); None gives, for a pyranose, the chair Angyal's scheme
-    prefers and, for a furanose, the lowest MMFF94 energy. The conformer is
-    the lowest-energy one of that shape. Properties ``shape``, ``form`` and
+    ``"A"``/``"B"``); None gives :meth:`RingConformers.best` (a pyranose in
+    the chair Angyal's scheme prefers). Properties ``shape``, ``form`` and
     ``mmff_kcal`` are set.
     """
     found = ring_conformers(chain, form, settings)
-    if chair is None and form.ring == "pyranose":
-        a, b = chair_weights(ring_layout(chain, form))
-        chair = "A" if a >= b else "B"
     conf = found.best(chair)
     mol = Chem.Mol(found.mol, confId=conf.conf_id)
     mol.SetProp("_Name", f"{chain} {form.key} {conf.shape}")
@@ -618,10 +621,11 @@ def anomer_comparison(chain: Chain, settings: ConformerSettings = DEFAULT_SETTIN
     fractions = anomer_fractions(chain)
     rt = R * ROOM_TEMPERATURE_K
     angyal = -rt * math.log(fractions["beta_pyranose"] / fractions["alpha_pyranose"])
-    mmff = (
-        ring_conformers(chain, forms["beta"], settings).best().energy_kcal
-        - ring_conformers(chain, forms["alpha"], settings).best().energy_kcal
-    )
+    lowest = {
+        anomer: min(c.energy_kcal for c in ring_conformers(chain, form, settings).conformers if not c.restrained)
+        for anomer, form in forms.items()
+    }
+    mmff = lowest["beta"] - lowest["alpha"]
     ang_pref = "beta" if angyal < 0 else "alpha"
     mm_pref = "beta" if mmff < 0 else "alpha"
     return AnomerComparison(angyal, mmff, ang_pref, mm_pref, ang_pref == mm_pref)

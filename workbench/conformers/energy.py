@@ -85,14 +85,14 @@ class ChairEnergy:
     terms: tuple[Term, ...]
 
 
-def _pattern(layout: RingLayout, chair: str) -> tuple[list[Substituent], list[Substituent]]:
-    """(axial, equatorial) substituent of ring positions 1-5, index 0 unused."""
-    ax: list[Substituent] = [layout.at(1).up]  # placeholder at index 0
-    eq: list[Substituent] = [layout.at(1).up]
+def _pattern(layout: RingLayout, chair: str) -> tuple[dict[int, Substituent], dict[int, Substituent]]:
+    """(axial, equatorial) substituent of each ring carbon, keyed by ring position 1-5."""
+    ax: dict[int, Substituent] = {}
+    eq: dict[int, Substituent] = {}
     for pos in layout.positions:
         face = axial_face(chair, pos.position)
-        ax.append(pos.on(face))
-        eq.append(pos.on(other_face(face)))
+        ax[pos.position] = pos.on(face)
+        eq[pos.position] = pos.on(other_face(face))
     return ax, eq
 
 
@@ -148,8 +148,8 @@ def chair_energy(layout: RingLayout, chair: str) -> ChairEnergy:
         raise StructureError(f"{layout.form.key}: Angyal's chair scheme applies to pyranoses only")
     total, terms = _score(layout, chair, explain=True)
     ax, eq = _pattern(layout, chair)
-    axial = tuple(s.label for s in ax[1:] if not s.is_hydrogen)
-    equatorial = tuple(s.label for s in eq[1:] if not s.is_hydrogen)
+    axial = tuple(s.label for s in ax.values() if not s.is_hydrogen)
+    equatorial = tuple(s.label for s in eq.values() if not s.is_hydrogen)
     return ChairEnergy(chair, chair_label(chair, layout.anomeric), round(total, 10), axial, equatorial, tuple(terms))
 
 

@@ -24,6 +24,11 @@ def _round(value: float | None, digits: int) -> float | None:
     return None if value is None else round(value, digits)
 
 
+# A 2-ketopyranose chair named as the aldopyranose chair with the same ring
+# atoms in the same places (C-5 up/C-2 down is the 4C1 type).
+_ALDOSE_TYPE = {"5C2": "4C1", "2C5": "1C4"}
+
+
 def physical_json(chain: Chain) -> dict:
     """``{"anomers": ..., "chairs": ..., "couplings": ...}`` for one sugar (keys in DESIGN.md).
 
@@ -31,7 +36,8 @@ def physical_json(chain: Chain) -> dict:
       (of the pyranose pool, Angyal's scheme, 25 C), ``alpha_furanose``,
       ``beta_furanose``, ``open_chain`` (None: not predicted).
     - ``chairs``: per pyranose form, ``{"preferred": "4C1"/"1C4" (aldoses) or
-      "2C5"/"5C2" (2-ketoses), "energy_gap_kcal": kcal/mol}``.
+      "2C5"/"5C2" (2-ketoses, IUPAC ring numbering), "energy_gap_kcal": kcal/mol,
+      "aldose_type": the same chair named as for an aldopyranose (5C2 -> 4C1, 2C5 -> 1C4)}``.
     - ``couplings``: per pyranose form, ``{"H1-H2": Hz, ...}`` (ketoses from H3-H4).
 
     About 0.3 ms per new chain, microseconds when its parts are cached.
@@ -40,7 +46,11 @@ def physical_json(chain: Chain) -> dict:
     return {
         "anomers": {k: _round(v, _FRACTION_DIGITS) for k, v in fractions.items()},
         "chairs": {
-            key: {"preferred": pref.preferred, "energy_gap_kcal": round(pref.energy_gap_kcal, _GAP_DIGITS)}
+            key: {
+                "preferred": pref.preferred,
+                "energy_gap_kcal": round(pref.energy_gap_kcal, _GAP_DIGITS),
+                "aldose_type": _ALDOSE_TYPE.get(pref.preferred, pref.preferred),
+            }
             for key, pref in chair_preferences(chain).items()
         },
         "couplings": {
