@@ -11,7 +11,6 @@ from __future__ import annotations
 import datetime as _dt
 import logging
 import os
-import tempfile
 from pathlib import Path
 
 from workbench import __version__
@@ -22,6 +21,7 @@ from workbench.display.experiments import SAFETY_DEFERRAL, plan_html
 from workbench.display.palette import ACCENT, CONFLICT, FONT, INK, MUTED, esc
 from workbench.display.tables import conflicts_html, ledger_html, project_html, trail_html
 from workbench.errors import WorkbenchError
+from workbench.files import write_text_atomic
 
 __all__ = ["ReportError", "render_report", "write_report"]
 
@@ -120,20 +120,9 @@ def write_report(text: str, path: str | os.PathLike[str], protect: tuple[str | o
     for other in protect:
         if Path(other).exists() and target.exists() and target.resolve() == Path(other).resolve():
             raise ReportError(f"{target}: refusing to overwrite the project file with the report; choose another name")
-    fd, tmp = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".tmp", dir=str(folder))
     try:
-        with os.fdopen(fd, "w", encoding="utf-8") as handle:
-            handle.write(text)
-            handle.flush()
-            os.fsync(handle.fileno())
-        os.replace(tmp, target)
+        write_text_atomic(target, text)
     except OSError as err:
-        if os.path.exists(tmp):
-            os.unlink(tmp)
         raise ReportError(f"{target}: cannot write the report ({err.strerror})") from err
-    except BaseException:
-        if os.path.exists(tmp):
-            os.unlink(tmp)
-        raise
     log.info("report written to %s (%d characters)", target, len(text))
     return target

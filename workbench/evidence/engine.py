@@ -200,16 +200,23 @@ def unary_domains(project: Project, observations: Iterable[Observation]) -> dict
     return domains
 
 
+def _relations(project: Project, observations: Iterable[Observation]) -> tuple[list[Binary], dict[str, Chain]]:
+    """Binary constraints of every relational observation, and the known sugars they name."""
+    constraints: list[Binary] = []
+    fixed: dict[str, Chain] = {}
+    for obs in observations:
+        if not obs.UNARY:
+            cons, named = constraints_of(project, obs)
+            constraints += cons
+            fixed.update(named)
+    return constraints, fixed
+
+
 def _network(project: Project, observations: Iterable[Observation]):
     obs_list = list(observations)
     domains = unary_domains(project, obs_list)
-    constraints: list[Binary] = []
-    for obs in obs_list:
-        if not obs.UNARY:
-            cons, fixed = constraints_of(project, obs)
-            constraints += cons
-            for name, chain in fixed.items():
-                domains[name] = [chain]
+    constraints, fixed = _relations(project, obs_list)
+    domains.update({name: [chain] for name, chain in fixed.items()})
     return domains, constraints
 
 
@@ -403,13 +410,8 @@ def joint_worlds(solution: Solution, limit: int = 20000) -> dict[str, list[dict[
         return {}
     active = [o for o in project.observations if o.id not in solution.disabled]
     domains: dict[str, list[Chain]] = {u: list(solution.survivors[u]) for u in project.unknown_ids}
-    constraints: list[Binary] = []
-    for obs in active:
-        if not obs.UNARY:
-            cons, fixed = constraints_of(project, obs)
-            constraints += cons
-            for name, chain in fixed.items():
-                domains[name] = [chain]
+    constraints, fixed = _relations(project, active)
+    domains.update({name: [chain] for name, chain in fixed.items()})
     out: dict[str, list[dict[str, Chain]]] = {}
     for group in components(domains, constraints):
         sub_domains = {v: domains[v] for v in group}

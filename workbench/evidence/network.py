@@ -172,20 +172,9 @@ def _condition_on_singletons(domains: Domains, constraints: list[Binary]) -> lis
 
 
 def _is_forest(variables: Iterable[str], constraints: list[Binary]) -> bool:
-    parent = {v: v for v in variables}
-
-    def root(v: str) -> str:
-        while parent[v] != v:
-            parent[v] = parent[parent[v]]
-            v = parent[v]
-        return v
-
-    for c in constraints:
-        ra, rb = root(c.a), root(c.b)
-        if ra == rb:
-            return False
-        parent[ra] = rb
-    return True
+    """True when the constraint graph (parallel edges already merged) has no cycle."""
+    names = list(variables)
+    return len(constraints) == len(names) - len(components(names, constraints))
 
 
 def supported_domains(domains: Domains, constraints: list[Binary]) -> Domains | None:

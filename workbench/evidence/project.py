@@ -11,7 +11,6 @@ from __future__ import annotations
 
 import json
 import os
-import tempfile
 from collections.abc import Mapping
 from dataclasses import dataclass, field, replace
 from functools import cached_property
@@ -23,6 +22,7 @@ from workbench.chem.chain import Chain
 from workbench.chem.parse import resolve
 from workbench.errors import NameNotRecognisedError, ObservationError, ProjectError, ScopeError
 from workbench.evidence.observations import Observation, observation_from_dict
+from workbench.files import write_text_atomic
 
 __all__ = [
     "FORMAT",
@@ -262,16 +262,4 @@ def dumps_project(project: Project) -> str:
 
 def save_project(project: Project, path: str | os.PathLike[str]) -> None:
     """Write ``project`` to ``path`` atomically (temporary file, then replace)."""
-    target = Path(path)
-    text = dumps_project(project)
-    fd, tmp = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".tmp", dir=str(target.parent or "."))
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8") as handle:
-            handle.write(text)
-            handle.flush()
-            os.fsync(handle.fileno())
-        os.replace(tmp, target)
-    except BaseException:
-        if os.path.exists(tmp):
-            os.unlink(tmp)
-        raise
+    write_text_atomic(path, dumps_project(project))
