@@ -6,7 +6,8 @@ import pytest
 
 from workbench.chem import catalogue, from_name, resolve, systematic_name, to_inchikey, to_smiles, trivial_name
 from workbench.chem.catalogue import Scope
-from workbench.chem.names import configurational_prefix
+from workbench.chem.names import configurational_prefix, ring_name
+from workbench.chem.smiles import RingForm
 from workbench.errors import NameNotRecognisedError
 
 BIG = Scope(carbons=(3, 4, 5, 6, 7, 8, 9), modifications=("any",))
@@ -95,3 +96,26 @@ def test_misspelling_gets_close_suggestions():
 
 def test_resolve_accepts_names_and_smiles():
     assert resolve("D-glucose") == resolve("O=C[C@H](O)[C@@H](O)[C@H](O)[C@H](O)CO")
+
+
+@pytest.mark.parametrize(
+    ("name", "parent", "form"),
+    [
+        # ring-form names: IUPAC-IUBMB 2-Carb-6 (anomers) and 2-Carb-33 (glycosides)
+        ("alpha-D-glucopyranose", "D-glucose", RingForm("pyranose", "alpha")),
+        ("\u03b2-D-fructofuranose", "D-fructose", RingForm("furanose", "beta")),
+        ("methyl alpha-L-rhamnopyranoside", "L-rhamnose", RingForm("pyranose", "alpha", methyl=True)),
+        ("beta-D-ribofuranose", "D-ribose", RingForm("furanose", "beta")),
+    ],
+)
+def test_ring_form_names_resolve_to_the_ring_smiles(name, parent, form):
+    chain, ring, anomer, methyl = ring_name(name)
+    assert chain == from_name(parent) == resolve(name)
+    assert RingForm(ring, anomer, methyl) == form
+    # the named ring form and the parsed ring SMILES agree (parse.from_smiles opens the ring)
+    assert resolve(to_smiles(chain, form)) == chain
+
+
+def test_impossible_ring_form_name_is_refused():
+    with pytest.raises(NameNotRecognisedError):
+        from_name("alpha-D-erythropyranose")

@@ -17,6 +17,7 @@ import re
 from functools import lru_cache
 
 from workbench.chem.chain import LEFT, RIGHT, Chain
+from workbench.chem.smiles import RingForm, ring_forms
 from workbench.errors import NameNotRecognisedError
 
 __all__ = [
@@ -28,6 +29,7 @@ __all__ = [
     "display_name",
     "from_name",
     "known_names",
+    "ring_name",
 ]
 
 # D-prefixes: sides of the centres from the lowest- to the highest-numbered
@@ -304,6 +306,37 @@ def known_names() -> list[str]:
     return sorted(_pretty(k) for k in _trivial_lookup())
 
 
+_RING_NAME = re.compile(
+    r"^(?P<methyl>methyl )?(?P<anomer>alpha|beta)-(?P<series>[DL])-(?P<root>[a-z]+?)"
+    r"(?P<ring>pyranose|furanose|pyranoside|furanoside)$"
+)
+
+
+def ring_name(text: str) -> tuple[Chain, str, str, bool] | None:
+    """Parse ``alpha-D-glucopyranose`` or ``methyl beta-D-fructofuranoside``.
+
+    Returns (parent chain, ring, anomer, methyl glycoside?) or None when the
+    text is not such a name. The root is the trivial name less its final
+    "se" (gluco-, fructo-, rhamno-), as in IUPAC-IUBMB 2-Carb-6 and 2-Carb-33.
+    """
+    m = _RING_NAME.match(_normalise(text))
+    if not m:
+        return None
+    glycoside = m["ring"].endswith("side")
+    if glycoside != bool(m["methyl"]):
+        return None
+    lookup = _trivial_lookup()
+    for trivial in TRIVIAL:
+        if "{s}" in trivial or " " in trivial or not trivial.endswith("se") or trivial[:-2] != m["root"]:
+            continue
+        chain = from_systematic(lookup[_with_series(trivial, m["series"]).lower()])
+        ring = "pyranose" if m["ring"].startswith("pyranos") else "furanose"
+        if RingForm(ring, m["anomer"]) not in ring_forms(chain):
+            raise NameNotRecognisedError(text, f"{display_name(chain)} cannot close a {ring} ring")
+        return chain, ring, m["anomer"], glycoside
+    return None
+
+
 def from_name(text: str) -> Chain:
     """The chain a trivial or systematic name stands for.
 
@@ -320,6 +353,9 @@ def from_name(text: str) -> Chain:
         raise NameNotRecognisedError(
             text, "a trivial name needs its series", (_with_series(bare[key], "D"), _with_series(bare[key], "L"))
         )
+    ring = ring_name(t)
+    if ring is not None:
+        return ring[0]
     try:
         return from_systematic(t)
     except NameNotRecognisedError as err:
