@@ -105,6 +105,14 @@ class Chain:
             if not group.stereo and side is not None:
                 raise StructureError(f"C-{i + 1}: {code} is not a stereocentre but has side {side!r}")
 
+    def __hash__(self) -> int:
+        """Hash of (groups, sides), computed once: chains key every cache of the workbench."""
+        cached = self.__dict__.get("_hash")
+        if cached is None:
+            cached = hash((self.groups, self.sides))
+            object.__setattr__(self, "_hash", cached)
+        return cached
+
     # ----------------------------------------------------------- derived values
     @property
     def carbons(self) -> int:
