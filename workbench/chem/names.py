@@ -172,6 +172,7 @@ def _stem(chain: Chain) -> str:
     return f"{_STEMS[n]}-2-ulose"
 
 
+@lru_cache(maxsize=65536)
 def systematic_name(chain: Chain) -> str:
     """IUPAC-IUBMB systematic name of a sugar, e.g. ``6-deoxy-L-manno-hexose``."""
     if not chain.is_sugar:
@@ -196,6 +197,7 @@ def _trivial_by_systematic() -> dict[str, str]:
     return out
 
 
+@lru_cache(maxsize=65536)
 def trivial_name(chain: Chain) -> str | None:
     """Trivial name in common use (``L-rhamnose``), or None where there is none."""
     if not chain.is_sugar:
@@ -203,6 +205,7 @@ def trivial_name(chain: Chain) -> str | None:
     return _trivial_by_systematic().get(systematic_name(chain))
 
 
+@lru_cache(maxsize=65536)
 def display_name(chain: Chain) -> str:
     """The trivial name where there is one, else the systematic name."""
     return trivial_name(chain) or systematic_name(chain)

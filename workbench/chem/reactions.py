@@ -46,6 +46,7 @@ alkaline in a hood; borohydride releases hydrogen with acid or water.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Literal
 
 from rdkit import Chem
 
@@ -79,7 +80,7 @@ class NotApplicable:
 
     reason: str
 
-    def __bool__(self) -> bool:
+    def __bool__(self) -> Literal[False]:
         return False
 
 

@@ -19,7 +19,7 @@ from collections.abc import Iterator
 from dataclasses import dataclass
 from functools import cache, lru_cache
 
-from rdkit import Chem, RDLogger
+from rdkit import Chem, rdBase
 
 from workbench.chem.chain import GROUPS, LEFT, RIGHT, Chain
 from workbench.errors import StructureError
@@ -45,11 +45,11 @@ _RING_DIGIT = "9"
 @contextlib.contextmanager
 def quiet_rdkit() -> Iterator[None]:
     """Silence RDKit's own logger inside the block, then restore it."""
-    RDLogger.DisableLog("rdApp.*")
+    rdBase.DisableLog("rdApp.*")
     try:
         yield
     finally:
-        RDLogger.EnableLog("rdApp.*")
+        rdBase.EnableLog("rdApp.*")
 
 
 @dataclass(frozen=True)

@@ -35,6 +35,7 @@ import time
 from collections.abc import Callable, Iterable
 from dataclasses import dataclass, field
 from functools import lru_cache
+from typing import Any, cast
 
 import numpy as np
 from rdkit import Chem
@@ -341,7 +342,9 @@ def _describe(
     pucker = puckering(ring_xyz)
     _, normal = mean_plane(ring_xyz)
     members = set(ring)
-    axial, equatorial, faces = [], [], []
+    axial: list[str] = []
+    equatorial: list[str] = []
+    faces: list[tuple[str, str]] = []
     for p, idx in enumerate(ring[1:], start=1):
         exo = [n.GetIdx() for n in mol.GetAtomWithIdx(idx).GetNeighbors() if n.GetIdx() not in members]
         pucker_z = pucker.z[p]
@@ -381,7 +384,7 @@ def _same_configuration(mol: Chem.Mol, conf_id: int, reference: str) -> bool:
 
 def _embed(mol: Chem.Mol, count: int, seed: int) -> list[int]:
     """ETKDGv3 embeddings (fixed seed, one thread); random starts if the default fails."""
-    params = rdDistGeom.ETKDGv3()
+    params: Any = rdDistGeom.ETKDGv3()  # rdkit's stubs type the parameters' properties wrongly
     params.randomSeed = seed
     params.numThreads = 1
     params.clearConfs = False
@@ -606,7 +609,7 @@ def chair_comparison(chain: Chain, form: RingForm, settings: ConformerSettings =
     low = min(known) if known else 0.0
     mmff = {k: (None if v is None else v - low) for k, v in mmff_raw.items()}
     angyal_pref = names["A"] if a <= b else names["B"]
-    mmff_pref = min((k for k in mmff if mmff[k] is not None), key=lambda k: mmff[k], default=None)
+    mmff_pref = min((k for k in mmff if mmff[k] is not None), key=lambda k: cast(float, mmff[k]), default=None)
     return ChairComparison(form.key, angyal, mmff, angyal_pref, mmff_pref, angyal_pref == mmff_pref)
 
 
@@ -620,7 +623,8 @@ def anomer_comparison(chain: Chain, settings: ConformerSettings = DEFAULT_SETTIN
         raise StructureError(f"{chain}: no alpha and beta pyranose to compare")
     fractions = anomer_fractions(chain)
     rt = R * ROOM_TEMPERATURE_K
-    angyal = -rt * math.log(fractions["beta_pyranose"] / fractions["alpha_pyranose"])
+    # both pyranose forms exist (checked above), so their fractions are numbers, never None
+    angyal = -rt * math.log(cast(float, fractions["beta_pyranose"]) / cast(float, fractions["alpha_pyranose"]))
     lowest = {
         anomer: min(c.energy_kcal for c in ring_conformers(chain, form, settings).conformers if not c.restrained)
         for anomer, form in forms.items()

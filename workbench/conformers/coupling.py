@@ -30,8 +30,9 @@ Two paths:
 from __future__ import annotations
 
 import math
-from collections.abc import Iterable, Sequence
+from collections.abc import Iterable
 from functools import cache
+from typing import TYPE_CHECKING
 
 import numpy as np
 
@@ -49,6 +50,9 @@ from workbench.conformers.chair import (
 from workbench.conformers.equilibrium import chair_weights, pyranose_layouts
 from workbench.conformers.layout import RingLayout, RingPosition, ring_layout
 from workbench.errors import StructureError
+
+if TYPE_CHECKING:
+    from numpy.typing import ArrayLike
 
 __all__ = [
     "HLA_PARAMETERS",
@@ -70,7 +74,7 @@ HLA_PARAMETERS = {"P1": 13.70, "P2": -0.73, "P3": 0.0, "P4": 0.56, "P5": -2.47, 
 ELECTRONEGATIVITY = {"H": 2.20, "C": 2.60, "N": 3.05, "O": 3.50}
 
 
-def dihedral_deg(p0: Sequence[float], p1: Sequence[float], p2: Sequence[float], p3: Sequence[float]) -> float:
+def dihedral_deg(p0: ArrayLike, p1: ArrayLike, p2: ArrayLike, p3: ArrayLike) -> float:
     """Torsion angle p0-p1-p2-p3 in degrees (-180, 180], IUPAC sign convention."""
     a, b, c, d = (np.asarray(p, dtype=float) for p in (p0, p1, p2, p3))
     b0, b1, b2 = a - b, c - b, d - c
@@ -82,9 +86,7 @@ def dihedral_deg(p0: Sequence[float], p1: Sequence[float], p2: Sequence[float], 
     return math.degrees(math.atan2(y, x))
 
 
-def orientation_sign(
-    proton: Sequence[float], carbon: Sequence[float], partner: Sequence[float], substituent: Sequence[float]
-) -> int:
+def orientation_sign(proton: ArrayLike, carbon: ArrayLike, partner: ArrayLike, substituent: ArrayLike) -> int:
     """HLA ``xi``: +1 if ``substituent`` stands clockwise from ``proton``.
 
     Viewed from ``carbon`` (which bears both) along the bond to ``partner``.

@@ -100,6 +100,7 @@ def _score(layout: RingLayout, chair: str, explain: bool) -> tuple[float, list[T
     ax, eq = _pattern(layout, chair)
     total = 0.0
     terms: list[Term] = []
+    value: float | None  # kcal/mol; a gauche pair may have no term (None)
     for i, j in _SYN_AXIAL_PAIRS:
         a, b = ax[i], ax[j]
         ka, kb = a.kind, b.kind

@@ -150,7 +150,7 @@ def eliminated_html(solution, uid: str, limit: int = 250) -> str:
 
     Rows follow the trail; beyond ``limit`` rows the rest are counted per observation.
     """
-    rows = []
+    rows: list[tuple[str, str, str]] = []
     overflow: dict[str, int] = {}
     for step in solution.trail:
         reasons = step.reasons.get(uid, {})

@@ -14,7 +14,7 @@ from __future__ import annotations
 import datetime as _dt
 from collections.abc import Mapping
 from dataclasses import dataclass, field, fields
-from typing import Any, ClassVar
+from typing import TYPE_CHECKING, Any, ClassVar
 
 from workbench.errors import ObservationError
 
@@ -66,6 +66,11 @@ class Observation:
     TITLE: ClassVar[str] = ""
     SPECS: ClassVar[tuple[FieldSpec, ...]] = ()
     UNARY: ClassVar[bool] = True
+
+    if TYPE_CHECKING:
+        # The kind-specific fields are made at run time from ``SPECS`` (see ``_kind``), so the
+        # type checker cannot see them; to it they are ``Any``, as ``_kind`` annotates them.
+        def __getattr__(self, name: str) -> Any: ...
 
     @property
     def kind(self) -> str:

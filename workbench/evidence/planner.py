@@ -238,7 +238,8 @@ def _experiments_for(
     unary("aldaric_acid", f"nitric acid on {uid}: is the aldaric acid optically active?")
     unary("alditol", f"borohydride reduction of {uid}: is the alditol optically active?")
     for substrate in ("free", "alditol", "methyl_pyranoside", "methyl_furanoside"):
-        unary("periodate", f"periodate on the {substrate.replace('_', ' ')} of {uid}", substrate=substrate)
+        what = {"free": "free sugar", "alditol": "alditol"}.get(substrate, substrate.replace("_", " "))
+        unary("periodate", f"periodate uptake and products of the {what} of {uid}", substrate=substrate)
     unary("specific_rotation", f"equilibrium specific rotation of {uid}")
     unary("anomer_ratio", f"alpha:beta pyranose ratio of {uid} by 1H NMR")
     for form in ("alpha_pyranose", "beta_pyranose"):

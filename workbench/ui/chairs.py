@@ -19,6 +19,7 @@ from IPython import get_ipython
 from IPython.display import display
 from rdkit import Chem
 
+from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.smiles import RingForm, ring_forms
 from workbench.conformers import conformer_mol, ring_conformers, ring_layout
@@ -38,7 +39,7 @@ class ChairView:
     """One survivor in one ring form and chair, ready to draw: molecule, marks and texts."""
 
     name: str
-    chain: object
+    chain: Chain
     form: RingForm
     chair: str | None  # "A", "B" or None (furanose, or lowest energy)
     shape: str

@@ -126,6 +126,7 @@ class EvidenceForm(Panel):
 
         ``quiet`` (used while typing) does not complain about fields not filled in yet.
         """
+        editor: FieldEditor | None
         for editor in self.editors.values():
             editor.clear_error()
         self.meta_message.value = ""
