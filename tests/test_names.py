@@ -119,3 +119,11 @@ def test_ring_form_names_resolve_to_the_ring_smiles(name, parent, form):
 def test_impossible_ring_form_name_is_refused():
     with pytest.raises(NameNotRecognisedError):
         from_name("alpha-D-erythropyranose")
+
+
+def test_synonyms_in_common_use():
+    # dextrose = D-glucose, levulose = D-fructose, allulose = psicose (Merck Index synonyms [from memory])
+    assert from_name("dextrose") == from_name("D-glucose")
+    assert from_name("levulose") == from_name("D-fructose")
+    assert from_name("D-allulose") == from_name("D-psicose")
+    assert from_name("D-erythro-pentulose") == from_name("D-ribulose")  # locant 2 understood

@@ -115,7 +115,14 @@ def _with_series(trivial: str, series: str) -> str:
 
 
 # Names that exist only as one enantiomer's name.
-_ONE_SERIES = {"colitose": "3,6-dideoxy-L-xylo-hexose", "ascarylose": "3,6-dideoxy-L-arabino-hexose"}
+_ONE_SERIES = {
+    "colitose": "3,6-dideoxy-L-xylo-hexose",
+    "ascarylose": "3,6-dideoxy-L-arabino-hexose",
+}
+# Old names of one enantiomer, read but never written.
+_SYNONYMS = {"dextrose": "D-gluco-hexose", "levulose": "D-arabino-hex-2-ulose"}
+# Other names in use for a sugar already in TRIVIAL (accepted when reading, never written).
+_ALIASES = {"allulose": "psicose"}
 _ACHIRAL = {"dihydroxyacetone": "1,3-dihydroxypropan-2-one", "glycerone": "1,3-dihydroxypropan-2-one"}
 
 
@@ -232,8 +239,6 @@ def from_systematic(name: str) -> Chain:
     end = m["end"]
     ketose = "ulose" in end
     uronic = end == "uronic acid"
-    if ketose and end == "ulose" and n != 4:
-        raise NameNotRecognisedError(name, "ketoses of more than 4 carbons are named '-2-ulose'")
     mods: dict[str, set[int]] = {"amino": set(), "deoxy": set(), "O-methyl": set()}
     for locants, word in _MOD.findall(m["mods"]):
         mods[word].update(int(x) for x in locants.split(",") if x)
@@ -295,6 +300,10 @@ def _trivial_lookup() -> dict[str, str]:
         out[_with_series(trivial, "L").lower()] = systematic_name(from_systematic(systematic).mirror())
     for trivial, systematic in _ONE_SERIES.items():
         out[trivial] = systematic
+    out.update(_SYNONYMS)
+    for alias, trivial in _ALIASES.items():
+        out[f"d-{alias}"] = out[f"d-{trivial}"]
+        out[f"l-{alias}"] = out[f"l-{trivial}"]
     for trivial, systematic in _ACHIRAL.items():
         out[trivial] = systematic
     return out
