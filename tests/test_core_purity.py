@@ -1,4 +1,7 @@
-"""The core imports no UI library, and imports quickly (checked in a fresh interpreter)."""
+"""The core imports no UI library, and imports quickly (checked in a fresh interpreter).
+
+The layering rule is common practice (STYLE.md principle 1, after datamol); no chemistry is checked here.
+"""
 
 from __future__ import annotations
 

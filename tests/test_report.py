@@ -1,4 +1,8 @@
-"""The HTML report (pure rendering, atomic writing) and the ``stereosieve report`` command."""
+"""The HTML report (pure rendering, atomic writing) and the ``stereosieve report`` command.
+
+Chemical expectations: D-allose and D-galactose give meso aldaric acids (REFERENCE_VALUES.md; Carey,
+Organic Chemistry, ch. 25, from memory); the cautions are those of REFERENCE_VALUES.md (ICSC 1670 etc.).
+"""
 
 from __future__ import annotations
 

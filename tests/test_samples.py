@@ -1,4 +1,8 @@
-"""Every sample project (and the packaged demo) solves as intended; all of them say they are invented."""
+"""Every sample project (and the packaged demo) solves as intended; all of them say they are invented.
+
+The data are invented, but each expected answer follows from published facts named beside its check
+(REFERENCE_VALUES.md; values marked [memory] there are from memory).
+"""
 
 from __future__ import annotations
 

@@ -1,4 +1,8 @@
-"""The evidence form, tested on its widget state (no kernel): generated fields, inline messages, recording."""
+"""The evidence form, tested on its widget state (no kernel): generated fields, inline messages, recording.
+
+Chemical expectations (meso aldaric acids of allose and galactose; shared osazones) come from
+REFERENCE_VALUES.md, from memory of the textbook facts listed there.
+"""
 
 from __future__ import annotations
 

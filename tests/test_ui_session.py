@@ -1,4 +1,9 @@
-"""The session behind the panels: every change re-solves through the core; files are saved atomically."""
+"""The session behind the panels: every change re-solves through the core; files are saved atomically.
+
+The survivor counts checked here follow from the demo project through the engine, whose chemistry is
+checked against published values in test_engine.py and test_reactions.py (common practice: the UI is
+tested on its state, not on chemistry).
+"""
 
 from __future__ import annotations
 
