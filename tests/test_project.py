@@ -100,6 +100,12 @@ def test_future_version_and_wrong_format():
     assert any("'format'" in p for p in problems)
 
 
+def test_empty_scope_is_named():
+    data = json.loads(json.dumps(GOOD))
+    data["unknowns"][0]["scope"] = {"carbonyl": ["ketose"], "modifications": ["uronic"]}
+    assert any("unknown G" in p and "no candidate" in p for p in problems_of(data))
+
+
 def test_bad_scope_is_named():
     data = json.loads(json.dumps(GOOD))
     data["unknowns"][0]["scope"] = {"carbons": [12]}

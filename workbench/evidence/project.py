@@ -17,7 +17,7 @@ from functools import cached_property
 from pathlib import Path
 from typing import Any
 
-from workbench.chem.catalogue import DEFAULT_SCOPE, Scope
+from workbench.chem.catalogue import DEFAULT_SCOPE, Scope, catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.parse import resolve
 from workbench.errors import NameNotRecognisedError, ObservationError, ProjectError, ScopeError
@@ -147,6 +147,8 @@ def _unknown_from(data: Any, index: int, problems: list[str]) -> Unknown | None:
                 scope = Scope.from_dict(dict(data["scope"]))
             except ScopeError as err:
                 problems.append(f"unknown {uid}: {err}")
+    if not catalogue(scope):
+        problems.append(f"unknown {uid}: the scope {scope.to_dict()} holds no candidate; widen it")
     return Unknown(uid.strip(), label, scope, scope_given="scope" in data)
 
 
