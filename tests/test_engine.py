@@ -242,3 +242,40 @@ def test_scope_counts_are_reported():
     sol = solve(load_project(DATA / "fischer_glucose.json"))
     assert sol.scope_counts == {"G": 16, "M": 16, "A": 8, "X": 16}
     assert len(catalogue(Scope(carbons=(6,), carbonyl=("aldose",)))) == 16
+
+
+def test_unpredicted_furanose_coupling_keeps_and_flags_candidates():
+    # furanose 3J values are not predicted by the fast chair path (DEVELOPERS.md): keep, flag, never eliminate;
+    # a tetrose cannot form a pyranose at all (ring closure needs O-5; IUPAC-IUBMB 2-Carb-5), so a pyranose
+    # coupling removes it
+    p = project(
+        [{"id": "U", "scope": {"carbons": [4, 5], "carbonyl": ["aldose"], "series": ["D"]}}],
+        [
+            {
+                "id": "E1",
+                "kind": "coupling_constant",
+                "unknown": "U",
+                "form": "beta_furanose",
+                "pair": "H1-H2",
+                "value": 1.0,
+            }
+        ],
+    )
+    sol = solve(p)
+    assert len(sol.survivors["U"]) == 6 and len(sol.flags["U"]) == 6
+    p = project(
+        [{"id": "U", "scope": {"carbons": [4], "carbonyl": ["aldose"], "series": ["D"]}}],
+        [
+            {
+                "id": "E1",
+                "kind": "coupling_constant",
+                "unknown": "U",
+                "form": "beta_pyranose",
+                "pair": "H1-H2",
+                "value": 7.0,
+            }
+        ],
+    )
+    sol = solve(p)
+    assert sol.conflicts == (("E1",),)
+    assert sol.trail[0].status == "contradicts"

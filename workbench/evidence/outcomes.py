@@ -21,7 +21,7 @@ from typing import Any
 from workbench.chem import reactions
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
-from workbench.chem.smiles import to_smiles
+from workbench.chem.smiles import ring_forms, to_smiles
 from workbench.evidence.observations import Observation
 
 __all__ = ["NO_PREDICTION", "Verdict", "predict", "fits", "product_key", "outcome_label", "formula_counts"]
@@ -117,10 +117,10 @@ def _physical(kind: str, chain: Chain, obs: Observation) -> Any:
             return NO_PREDICTION
         return a / (a + b)
     if kind == "coupling_constant":
-        per_form = conformers.ring_couplings(chain)
-        if obs.form not in per_form:
+        if obs.form not in {f.key for f in ring_forms(chain)}:
             return None  # this ring form cannot exist for the candidate
-        value = per_form[obs.form].get(obs.pair)
+        per_form = conformers.ring_couplings(chain)
+        value = per_form.get(obs.form, {}).get(obs.pair)  # furanoses: no fast prediction, kept
         return NO_PREDICTION if value is None else float(value)
     raise ValueError(kind)
 
