@@ -135,6 +135,7 @@ class Plan:
     advice: tuple[str, ...] = ()
     solved: tuple[str, ...] = ()
     ranking: str = "value"
+    contradictory: bool = False
 
     def to_dict(self) -> dict:
         """``plan --json`` (Contract 2)."""
@@ -144,6 +145,7 @@ class Plan:
             "advice": list(self.advice),
             "solved": list(self.solved),
             "ranking": self.ranking,
+            "contradictory": self.contradictory,
         }
 
 
@@ -386,7 +388,7 @@ def plan(
         raise ValueError(f"ranking must be 'value' or 'information', got {ranking!r}")
     sol = solution or solve(project)
     if sol.contradictory:
-        return Plan((), (), tuple(_advice_for_conflicts(sol)), (), ranking)
+        return Plan((), (), tuple(_advice_for_conflicts(sol)), (), ranking, contradictory=True)
     targets = [unknown] if unknown else list(project.unknown_ids)
     for t in targets:
         if t not in project.unknown_ids:
