@@ -100,11 +100,7 @@ def _cmd_plan(args: argparse.Namespace) -> int:
         _print_json(result.to_dict())
     else:
         print(plan_text(result))
-    return (
-        EXIT_CONTRADICTION
-        if (not result.experiments and result.advice and "contradictory" in result.advice[0])
-        else EXIT_OK
-    )
+    return EXIT_CONTRADICTION if result.contradictory else EXIT_OK
 
 
 # ----------------------------------------------------------------- demo
