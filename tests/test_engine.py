@@ -279,3 +279,45 @@ def test_unpredicted_furanose_coupling_keeps_and_flags_candidates():
     sol = solve(p)
     assert sol.conflicts == (("E1",),)
     assert sol.trail[0].status == "contradicts"
+
+
+def test_stepwise_degradation_chain_of_three_linked_unknowns():
+    # Textbook pattern of successive Ruff degradations (e.g. McMurry, Organic Chemistry, ch. 25
+    # problems [from memory]): the tetrose at the end gives meso-tartaric (erythraric) acid, so it is
+    # D-erythrose; the pentose with an active aldaric acid above it is D-arabinose; the hexose is then
+    # D-glucose or D-mannose (Kiliani-Fischer pair of D-arabinose, REFERENCE_VALUES.md).
+    hexose = {"carbons": [6], "carbonyl": ["aldose"]}
+    p = project(
+        [
+            {"id": "H", "scope": hexose},
+            {"id": "P", "scope": {"carbons": [5], "carbonyl": ["aldose"]}},
+            {"id": "T", "scope": {"carbons": [4], "carbonyl": ["aldose"]}},
+        ],
+        [
+            {"id": "E1", "kind": "chain_shortening", "method": "ruff", "substrate": "H", "product": "P"},
+            {"id": "E2", "kind": "chain_shortening", "method": "ruff", "substrate": "P", "product": "T"},
+            {"id": "E3", "kind": "series", "unknown": "H", "value": "D"},
+            {"id": "E4", "kind": "aldaric_acid", "unknown": "T", "optically_active": False},
+            {"id": "E5", "kind": "aldaric_acid", "unknown": "P", "optically_active": True},
+        ],
+    )
+    sol = solve(p)
+    assert names(sol, "T") == ["D-erythrose"]
+    assert names(sol, "P") == ["D-arabinose"]
+    assert names(sol, "H") == ["D-glucose", "D-mannose"]
+    # one more relation settles it: mannaric acid comes from D-mannose alone (C2 symmetry)
+    q = project(
+        [{"id": "H", "scope": hexose}, {"id": "Y", "scope": hexose}] + [u.to_dict() for u in p.unknowns[1:]],
+        [o.to_dict() for o in p.observations]
+        + [
+            {
+                "id": "E6",
+                "kind": "same_product",
+                "reaction": "aldaric_acid",
+                "members": ["H", "Y"],
+                "relation": "identical",
+            },
+            {"id": "E7", "kind": "different", "members": ["H", "Y"]},
+        ],
+    )
+    assert names(solve(q), "H") == ["D-glucose"]
