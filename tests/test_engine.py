@@ -321,3 +321,16 @@ def test_stepwise_degradation_chain_of_three_linked_unknowns():
         ],
     )
     assert names(solve(q), "H") == ["D-glucose"]
+
+
+def test_rotation_sign_alone_can_eliminate():
+    # Signs of the D-aldoses (REFERENCE_VALUES.md): (-) gulose and idose among the hexoses; glucose
+    # +52.7 (Bruice 8th ed.), galactose +80.2, mannose +14.6 (handbook table). A laevorotatory
+    # D-aldohexose is D-gulose or D-idose; both are kept with a flag, having only a published sign.
+    p = project(
+        [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}}],
+        [{"id": "E1", "kind": "specific_rotation", "unknown": "U", "value": -20.0}],
+    )
+    sol = solve(p)
+    assert names(sol, "U") == ["D-gulose", "D-idose"]
+    assert all("only the sign" in note[0] for note in sol.flags["U"].values())

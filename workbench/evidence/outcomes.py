@@ -104,12 +104,15 @@ def _physical(kind: str, chain: Chain, obs: Observation) -> Any:
         from workbench import conformers
     except ImportError:
         return NO_PREDICTION
-    needed = {"specific_rotation": "published_rotation", "anomer_ratio": "anomer_fractions"}
+    needed = {"specific_rotation": "rotation_sign", "anomer_ratio": "anomer_fractions"}
     if not hasattr(conformers, needed.get(kind, "ring_couplings")):
         return NO_PREDICTION  # the physical layer is not installed in this build
     if kind == "specific_rotation":
         record = conformers.published_rotation(chain)
-        return NO_PREDICTION if record is None or record.equilibrium is None else float(record.equilibrium)
+        if record is not None and record.equilibrium is not None:
+            return float(record.equilibrium)
+        sign = conformers.rotation_sign(chain)  # some sugars have only a published sign
+        return NO_PREDICTION if sign is None else ("sign", sign)
     if kind == "anomer_ratio":
         fr = conformers.anomer_fractions(chain)
         a, b = fr.get("alpha_pyranose"), fr.get("beta_pyranose")
@@ -178,6 +181,8 @@ def outcome_label(kind: str, value: Any) -> str:
         return "no product" if kind in ("aldaric_acid", "alditol") else "does not apply"
     if kind in ("aldaric_acid", "alditol"):
         return "optically active" if value else "optically inactive (meso)"
+    if kind == "specific_rotation" and isinstance(value, tuple):
+        return "dextrorotatory (sign only)" if value[1] > 0 else "laevorotatory (sign only)"
     if kind == "periodate":
         p, f, h, c = value
         co2 = "" if c is None else f", CO2 {c:g}"
@@ -210,6 +215,11 @@ def fits(obs: Observation, chain: Chain) -> Verdict:
         if observed[3] is not None:
             pairs.append((predicted[3], observed[3]))
         ok = all(abs(p - o) <= tol + 1e-9 for p, o in pairs)
+    elif kind == "specific_rotation" and isinstance(predicted, tuple):
+        # only the sign is published: an observed value of the other sign beyond the tolerance eliminates
+        ok = float(observed) * predicted[1] >= -obs.tolerance - 1e-9
+        if ok:
+            return Verdict(True, f"{kind}: only the sign of [alpha]D of {display_name(chain)} is published; kept", True)
     elif kind in ("specific_rotation", "anomer_ratio", "coupling_constant"):
         ok = abs(float(predicted) - float(observed)) <= obs.tolerance + 1e-9
     else:
