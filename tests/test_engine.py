@@ -334,3 +334,15 @@ def test_rotation_sign_alone_can_eliminate():
     sol = solve(p)
     assert names(sol, "U") == ["D-gulose", "D-idose"]
     assert all("only the sign" in note[0] for note in sol.flags["U"].values())
+
+
+def test_ketose_anomer_ratio_is_not_judged_by_the_aldose_scheme():
+    # D-fructose: beta-p 0.682, alpha-p 0.027 in D2O (Barclay et al., Carbohydr. Res. 347, 136, 2012);
+    # the pyranose scheme is not trusted for ketoses, so fructose must survive its own measured ratio
+    p = project(
+        [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["ketose"], "series": ["D"]}}],
+        [{"id": "E1", "kind": "anomer_ratio", "unknown": "U", "alpha_fraction": 0.038}],
+    )
+    sol = solve(p)
+    assert "D-fructose" in names(sol, "U")
+    assert any("no prediction" in n[0] for n in sol.flags["U"].values())
