@@ -158,3 +158,28 @@ def test_save_never_destroys_the_previous_file(tmp_path, monkeypatch):
         save_project(p.without("E1"), target)
     assert target.read_text() == before
     assert [f.name for f in tmp_path.iterdir()] == ["p.json"]
+
+
+@pytest.mark.parametrize(("given", "stored"), [("H2-H1", "H1-H2"), ("H-3,H-4", "H3-H4"), ("H5ax-H4", "H4-H5ax")])
+def test_proton_pairs_are_normalised(given, stored):
+    obs = {
+        "id": "E1",
+        "kind": "coupling_constant",
+        "unknown": "G",
+        "form": "beta_pyranose",
+        "pair": given,
+        "value": 7.8,
+    }
+    assert project_from_dict(with_obs(obs)).observations[0].pair == stored
+
+
+def test_bad_proton_pair_is_named():
+    obs = {
+        "id": "E1",
+        "kind": "coupling_constant",
+        "unknown": "G",
+        "form": "beta_pyranose",
+        "pair": "C1-H2",
+        "value": 7.8,
+    }
+    assert any("observation E1, field 'pair'" in p for p in problems_of(with_obs(obs)))

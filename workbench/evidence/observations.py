@@ -12,6 +12,7 @@ deg mL g-1 dm-1 ([alpha]D, water, about 20 C); couplings in Hz.
 from __future__ import annotations
 
 import datetime as _dt
+import re
 from collections.abc import Mapping
 from dataclasses import dataclass, field, fields
 from typing import TYPE_CHECKING, Any, ClassVar
@@ -382,12 +383,28 @@ def observation_from_dict(data: Mapping[str, Any]) -> Observation:
     if kind == "same_product" and kwargs["relation"] == "enantiomeric" and len(kwargs["members"]) != 2:
         raise ObservationError(oid, "members", "an 'enantiomeric' relation needs exactly two members")
     if kind == "coupling_constant":
-        pair = kwargs["pair"].upper().replace(" ", "")
-        parts = pair.split("-")
-        if len(parts) != 2 or not all(p.startswith("H") and p[1:].isdigit() for p in parts):
-            raise ObservationError(oid, "pair", f"{kwargs['pair']!r} is not a proton pair such as H1-H2")
-        kwargs["pair"] = pair
+        kwargs["pair"] = _proton_pair(kwargs["pair"], oid)
     return cls(oid, **kwargs)
+
+
+_PROTON = re.compile(r"^H-?(\d+)(ax|eq)?$", re.IGNORECASE)
+
+
+def _proton_pair(text: str, oid: str) -> str:
+    """``H1-H2``, ``H4-H5ax`` (pentopyranose C-5 protons) in a fixed form, lower carbon first."""
+    parts = text.replace(" ", "").replace(",", "-").split("-")
+    # "H-1-H-2" style: join a bare "H" with the number after it
+    merged: list[str] = []
+    for part in parts:
+        if merged and merged[-1].upper() == "H":
+            merged[-1] += part
+        else:
+            merged.append(part)
+    matches = [_PROTON.match(p) for p in merged]
+    if len(merged) != 2 or not all(matches):
+        raise ObservationError(oid, "pair", f"{text!r} is not a proton pair such as H1-H2 or H4-H5ax")
+    protons = sorted(((int(m[1]), (m[2] or "").lower()) for m in matches if m), key=lambda x: x[0])
+    return "-".join(f"H{n}{suffix}" for n, suffix in protons)
 
 
 def field_names(kind: str) -> tuple[str, ...]:

@@ -221,6 +221,19 @@ def _unary_outcomes(kind: str, params: dict, survivors: Sequence[Chain]) -> dict
     return {c: outcome_label(kind, v) for c, v in raw.items()}
 
 
+def _coupling_pairs(survivors: Sequence[Chain], form: str) -> list[str]:
+    """Proton pairs with a predicted coupling in ``form`` for any survivor (ring order)."""
+    try:
+        from workbench.conformers import ring_couplings
+    except ImportError:
+        return list(_PAIRS)
+    seen: dict[str, None] = {}
+    for chain in survivors[:64]:
+        for pair in ring_couplings(chain).get(form, {}):
+            seen.setdefault(pair, None)
+    return list(seen)
+
+
 def _experiments_for(
     uid: str, survivors: Sequence[Chain], others: Sequence[str]
 ) -> list[tuple[str, dict, str, Callable]]:
@@ -245,7 +258,7 @@ def _experiments_for(
     unary("specific_rotation", f"equilibrium specific rotation of {uid}")
     unary("anomer_ratio", f"alpha:beta pyranose ratio of {uid} by 1H NMR")
     for form in ("alpha_pyranose", "beta_pyranose"):
-        for pair in _PAIRS:
+        for pair in _coupling_pairs(survivors, form):
             unary("coupling_constant", f"3J({pair}) of the {form.replace('_', ' ')} of {uid}", form=form, pair=pair)
     for reaction in ("osazone", "alditol", "aldaric_acid"):
         for ref in REFERENCE_SUGARS:
