@@ -83,13 +83,9 @@ def _short(value: object) -> str:
 
 # ------------------------------------------------------------------ solutions
 def survivor_json(chain: Chain) -> dict:
-    """One survivor as Contract 2 lists it."""
-    return {
-        "name": display_name(chain),
-        "systematic_name": systematic_name(chain),
-        "smiles": to_smiles(chain),
-        "inchikey": to_inchikey(chain),
-    }
+    """One survivor as Contract 2 lists it (the naming part of :func:`identity_json`)."""
+    ident = identity_json(chain)
+    return {key: ident[key] for key in ("name", "systematic_name", "smiles", "inchikey")}
 
 
 def solution_json(solution) -> dict:

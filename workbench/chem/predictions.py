@@ -150,11 +150,6 @@ class Prediction:
         """Why experiment ``key`` gives no product, or None when it does."""
         return dict(self.not_applicable).get(key)
 
-    @property
-    def alditol_set(self) -> frozenset[str]:
-        """The alditol(s) as a set of canonical SMILES."""
-        return frozenset(self.alditols)
-
 
 def _keep(value, key: str, reasons: list[tuple[str, str]]):
     """``value`` unless it is NotApplicable (then record the reason, give None)."""

@@ -393,11 +393,6 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
     )
 
 
-def describe_survivor(chain: Chain) -> str:
-    """Name used in trails and tables."""
-    return display_name(chain)
-
-
 def joint_worlds(solution: Solution, limit: int = 20000) -> dict[str, list[dict[str, Chain]]]:
     """Joint assignments of linked unknowns: for each unknown, the solutions of its group.
 

@@ -14,7 +14,7 @@ from __future__ import annotations
 import datetime as _dt
 import re
 from collections.abc import Mapping
-from dataclasses import dataclass, field, fields
+from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any, ClassVar
 
 from workbench.errors import ObservationError
@@ -405,8 +405,3 @@ def _proton_pair(text: str, oid: str) -> str:
         raise ObservationError(oid, "pair", f"{text!r} is not a proton pair such as H1-H2 or H4-H5ax")
     protons = sorted(((int(m[1]), (m[2] or "").lower()) for m in matches if m), key=lambda x: x[0])
     return "-".join(f"H{n}{suffix}" for n, suffix in protons)
-
-
-def field_names(kind: str) -> tuple[str, ...]:
-    """The kind-specific field names, in order (for forms and tables)."""
-    return tuple(f.name for f in fields(OBSERVATION_TYPES[kind]) if f.name not in _COMMON)

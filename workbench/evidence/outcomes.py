@@ -13,7 +13,6 @@ couple) the candidate is kept and flagged rather than eliminated.
 from __future__ import annotations
 
 import re
-from collections.abc import Hashable
 from dataclasses import dataclass
 from functools import cache
 from typing import Any
@@ -231,9 +230,3 @@ def fits(obs: Observation, chain: Chain) -> Verdict:
     if ok:
         return Verdict(True)
     return Verdict(False, f"predicted {outcome_label(kind, predicted)}, observed {outcome_label(kind, observed)}")
-
-
-def outcome_key(obs: Observation, chain: Chain) -> Hashable:
-    """Hashable predicted outcome used by the planner to group candidates."""
-    value = predict(obs, chain)
-    return value if isinstance(value, Hashable) else repr(value)
