@@ -32,26 +32,12 @@ from workbench.conformers import (
     chair_preferences,
     conformer,
     coupling,
-    energy,
-    equilibrium,
-    layout,
     published_rotation,
     ring_conformers,
     ring_couplings,
     ring_couplings_3d,
 )
-
-
-def _clear_fast_caches() -> None:
-    for cached in (
-        layout.ring_layout,
-        energy.chair_energies,
-        equilibrium.pyranose_layouts,
-        equilibrium._pyranose_fractions,
-        equilibrium._chair_preferences,
-        coupling._form_couplings,
-    ):
-        cached.cache_clear()
+from workbench.conformers.summary import clear_fast_caches
 
 
 def _fast(chains) -> float:
@@ -70,7 +56,7 @@ def bench_fast() -> None:
         ("3-9 C, any modification", Scope(carbons=(3, 4, 5, 6, 7, 8, 9), modifications=("any",))),
     ):
         chains = catalogue(scope)
-        _clear_fast_caches()
+        clear_fast_caches()
         cold = _fast(chains)
         cached = _fast(chains)
         print(f"{label:<26} {len(chains):>5} candidates   cold {cold * 1e3:7.3f} ms   cached {cached * 1e3:7.4f} ms")

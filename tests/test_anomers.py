@@ -109,18 +109,11 @@ def test_physical_json_works_for_every_chain_of_a_wide_scope():
 
 
 def test_fast_path_is_well_under_a_millisecond_per_candidate():
-    from workbench.conformers import coupling, energy, equilibrium, layout
+    from workbench.conformers import coupling, equilibrium
+    from workbench.conformers.summary import clear_fast_caches
 
     chains = catalogue(Scope(carbons=(5, 6, 7), modifications=("deoxy:6",)))
-    for cached in (
-        layout.ring_layout,
-        energy.chair_energies,
-        equilibrium.pyranose_layouts,
-        equilibrium._pyranose_fractions,
-        equilibrium._chair_preferences,
-        coupling._form_couplings,
-    ):
-        cached.cache_clear()
+    clear_fast_caches()
     start = time.perf_counter()
     for chain in chains:
         anomer_fractions(chain)
