@@ -107,3 +107,36 @@ def test_demo_command_json(capsys):
     assert main(["demo", "--json"]) == 0
     data = json.loads(capsys.readouterr().out)
     assert [s["name"] for s in data["unknowns"]["S1"]["survivors"]] == ["D-galactose"]
+
+
+CURVE = SAMPLES / "galactose_lot_mutarotation.csv"
+
+
+def test_sample_curve_says_it_is_invented():
+    comments = [line for line in CURVE.read_text(encoding="utf-8").splitlines() if line.startswith("#")]
+    assert comments and "invented" in comments[0].lower()
+
+
+def test_sample_curve_fit_recovers_the_parameters_it_was_made_from():
+    from workbench.conformers import fit_mutarotation, read_curve
+
+    curve = read_curve(CURVE)
+    # The file was generated (its comment lines say how) from an invented k = 0.020/min and an invented start
+    # of 83 % alpha, towards D-galactose's published equilibrium; the anomers' rotations are published:
+    # alpha +150.7, beta +52.8, equilibrium +80.2 (Bruice, Organic Chemistry, 8th ed., problems 20.65-66).
+    # So [alpha]0 = 0.83 * 150.7 + 0.17 * 52.8 = 134.06 and the equilibrium beta fraction is
+    # (150.7 - 80.2) / (150.7 - 52.8) = 0.720 (two-state model). The scatter added is at most 0.4 deg.
+    fit = fit_mutarotation(curve.times_min, curve.rotations, alpha=150.7, beta=52.8)
+    assert abs(fit.rate_constant_per_min - 0.020) < 0.001
+    assert abs(fit.initial_rotation - 134.06) < 1.0
+    assert abs(fit.equilibrium_rotation - 80.2) < 0.5
+    assert abs(fit.initial_beta_fraction - 0.17) < 0.02
+    assert abs(fit.beta_fraction - 0.720) < 0.01
+    assert fit.rmse < 0.4
+
+
+def test_sample_curve_from_the_command_line(capsys):
+    assert main(["mutarotation", str(CURVE), "--sugar", "D-galactose", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    # ln 2 / 0.020 per min = 34.7 min (the invented rate constant the file was made with)
+    assert abs(data["half_life_min"] - 34.7) < 2.0
