@@ -15,8 +15,14 @@ import io
 import math
 from dataclasses import dataclass
 from pathlib import Path
+from typing import TYPE_CHECKING
 
 from workbench.errors import CurveFileError
+
+if TYPE_CHECKING:
+    import pandas as pd
+
+    from workbench.conformers.mutarotation import MutarotationFit
 
 __all__ = ["Curve", "REQUIRED_COLUMNS", "parse_curve", "read_curve"]
 
@@ -30,6 +36,12 @@ class Curve:
     source: str
     times_min: tuple[float, ...]
     rotations: tuple[float, ...]
+
+    def to_frame(self, fit: MutarotationFit | None = None) -> pd.DataFrame:
+        """``time_min``, ``specific_rotation`` (and ``fitted``, ``residual`` given a fit) as a DataFrame."""
+        from workbench.frames import curve_frame
+
+        return curve_frame(self, fit)
 
 
 def _number(text: str, source: str, line: int, column: str) -> float:

@@ -16,6 +16,7 @@ import logging
 from collections.abc import Iterable
 from dataclasses import dataclass, field
 from functools import cache
+from typing import TYPE_CHECKING
 
 from workbench.chem import reactions
 from workbench.chem.catalogue import catalogue
@@ -25,6 +26,9 @@ from workbench.evidence.network import Binary, components, enumerate_solutions, 
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import fits, product_key
 from workbench.evidence.project import Project
+
+if TYPE_CHECKING:
+    import pandas as pd
 
 __all__ = ["TrailStep", "Solution", "solve", "constraints_of", "unary_domains", "is_consistent", "joint_worlds"]
 
@@ -87,6 +91,30 @@ class Solution:
                 text = step.reasons.get(uid, {}).get(chain, "")
                 return f"{step.observation}: {text}" if text else step.observation
         return ""
+
+    def to_frame(self) -> pd.DataFrame:
+        """The survivors of every unknown as a DataFrame (:func:`workbench.frames.survivors_frame`)."""
+        from workbench.frames import survivors_frame
+
+        return survivors_frame(self)
+
+    def trail_frame(self) -> pd.DataFrame:
+        """Every elimination with its observation and reason (:func:`workbench.frames.trail_frame`)."""
+        from workbench.frames import trail_frame
+
+        return trail_frame(self)
+
+    def narrowing_frame(self) -> pd.DataFrame:
+        """Candidates left per unknown after each step (:func:`workbench.frames.narrowing_frame`)."""
+        from workbench.frames import narrowing_frame
+
+        return narrowing_frame(self)
+
+    def conflicts_frame(self) -> pd.DataFrame:
+        """The minimal conflicting sets, one row per member (:func:`workbench.frames.conflicts_frame`)."""
+        from workbench.frames import conflicts_frame
+
+        return conflicts_frame(self)
 
 
 # ------------------------------------------------------------------ building

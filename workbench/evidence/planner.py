@@ -26,7 +26,7 @@ from collections import defaultdict
 from collections.abc import Callable, Hashable, Sequence
 from dataclasses import dataclass
 from functools import cache
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from workbench.chem import reactions
 from workbench.chem.chain import Chain
@@ -37,6 +37,9 @@ from workbench.evidence.engine import Solution, joint_worlds, solve
 from workbench.evidence.observations import OBSERVATION_TYPES
 from workbench.evidence.outcomes import NO_PREDICTION, outcome_label, predict, product_key
 from workbench.evidence.project import Project
+
+if TYPE_CHECKING:
+    import pandas as pd
 
 __all__ = ["Experiment", "ExperimentPair", "Plan", "plan", "entropy_bits", "REFERENCE_SUGARS"]
 
@@ -147,6 +150,12 @@ class Plan:
             "ranking": self.ranking,
             "contradictory": self.contradictory,
         }
+
+    def to_frame(self) -> pd.DataFrame:
+        """The ranking as a DataFrame, best first (:func:`workbench.frames.plan_frame`)."""
+        from workbench.frames import plan_frame
+
+        return plan_frame(self)
 
 
 def entropy_bits(sizes: Sequence[int]) -> float:

@@ -15,7 +15,7 @@ from collections.abc import Mapping
 from dataclasses import dataclass, field, replace
 from functools import cached_property
 from pathlib import Path
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from workbench.chem.catalogue import DEFAULT_SCOPE, Scope, catalogue
 from workbench.chem.chain import Chain
@@ -23,6 +23,9 @@ from workbench.chem.parse import resolve
 from workbench.errors import NameNotRecognisedError, ObservationError, ProjectError, ScopeError
 from workbench.evidence.observations import Observation, observation_from_dict
 from workbench.files import write_text_atomic
+
+if TYPE_CHECKING:
+    import pandas as pd
 
 __all__ = [
     "FORMAT",
@@ -120,6 +123,12 @@ class Project:
             "unknowns": [u.to_dict() for u in self.unknowns],
             "observations": [o.to_dict() for o in self.observations],
         }
+
+    def to_frame(self) -> pd.DataFrame:
+        """The ledger as a DataFrame, one row per observation (:func:`workbench.frames.observations_frame`)."""
+        from workbench.frames import observations_frame
+
+        return observations_frame(self)
 
 
 def _unknown_from(data: Any, index: int, problems: list[str]) -> Unknown | None:
