@@ -179,3 +179,83 @@ def test_report_command_bad_input_exits_2(tmp_path, capsys):
 
 def test_report_command_needs_an_output(capsys):
     assert main(["report", str(data_path(DEMO_PROJECT))]) == 2
+
+
+# ------------------------------------------------------------------ rivals, authorship, outputs
+def _section(html: str, heading: str) -> str:
+    start = html.index(f"<h2>{heading}</h2>")
+    end = html.find("<h2>", start + 1)
+    return html[start:end]
+
+
+def test_deoxyhexose_report_names_the_epimers_removed_last_as_rivals():
+    project = load_project(SAMPLES / "red_seaweed_deoxyhexose.json")
+    html = render_report(project, solve(project), None, generated=STAMP)
+    rivals = _section(html, "Closest rivals")
+    # L-fucose is 6-deoxy-L-galactose; its C-2, C-3 and C-4 epimers are 6-deoxy-L-talose, 6-deoxy-L-gulose and
+    # 6-deoxy-L-glucose (L-quinovose) (configurational prefixes, IUPAC-IUBMB 2-Carb-8; common practice).
+    # The sample's last two records are the couplings that tell galacto from these.
+    last = [o.id for o in project.observations][-2:]
+    for epimer in ("6-deoxy-L-talo-hexose", "6-deoxy-L-gulo-hexose", "L-quinovose"):
+        assert epimer in rivals
+    rows = re.findall(r"<tr>(.*?)</tr>", rivals)[1:]
+    assert rows and all(any(f"<b>{oid}</b>" in row for oid in last) for row in rows)
+    assert "invented 2025-01-27" in rivals  # who recorded the removing observation, and when
+    # the eliminated table leads with the latest removals, so the epimers appear although 275 were removed
+    candidates = _section(html, "Candidates")
+    table = candidates[candidates.index("ss-eliminated") :]
+    assert "L-quinovose" in table[:4000] and "6-deoxy-L-talo-hexose" in table
+
+
+def test_rivals_of_an_open_question_are_the_other_survivors_with_their_shares(demo):
+    project, solution, _ = demo
+    html = render_report(project, solution, None, generated=STAMP)
+    rivals = _section(html, "Closest rivals")
+    # two survivors left (D-allose and D-galactose, both meso aldaric acids): each holds half
+    assert "still possible (50%)" in rivals
+
+
+def test_ledger_shows_who_recorded_each_observation_and_when():
+    project = load_project(SAMPLES / "gum_exudate_four_sugars.json")
+    html = render_report(project, solve(project), None, generated=STAMP)
+    ledger = _section(html, "Evidence ledger")
+    for obs in project.observations:
+        for text in (obs.by, obs.recorded):
+            if text:
+                assert html_escape(text) in ledger
+
+
+def test_report_has_no_external_reference_at_all():
+    for path in sorted(SAMPLES.glob("*.json")):
+        project = load_project(path)
+        solution = solve(project)
+        html = render_report(project, solution, plan(project, solution=solution), generated=STAMP)
+        # the only URL allowed is the SVG namespace name, which is an identifier, never fetched
+        urls = set(re.findall(r"https?://[^\s\"'<>)]+", html)) - {"http://www.w3.org/2000/svg"}
+        assert urls == set(), path.name
+        assert "<script" not in html and "@import" not in html and "url(" not in html
+
+
+def test_report_follows_the_umask_and_refuses_devices_and_folders(tmp_path, capsys):
+    saved = os.umask(0o002)
+    try:
+        out = tmp_path / "r.html"
+        assert main(["report", str(SAMPLES / "rare_pentose_epimerisation.json"), "-o", str(out), "--no-plan"]) == 0
+        assert out.stat().st_mode & 0o777 == 0o664  # 0666 less the umask (POSIX open(2), common practice)
+    finally:
+        os.umask(saved)
+    assert main(["report", str(SAMPLES / "rare_pentose_epimerisation.json"), "-o", "/dev/null"]) == 2
+    assert main(["report", str(SAMPLES / "rare_pentose_epimerisation.json"), "-o", str(tmp_path)]) == 2
+    err = capsys.readouterr().err
+    assert "device or special file" in err and "is a folder" in err
+    with pytest.raises(ReportError, match="device"):
+        write_report("x", "/dev/null")
+
+
+def test_report_through_a_symlink_writes_the_target(tmp_path):
+    real = tmp_path / "real.html"
+    real.write_text("old", encoding="utf-8")
+    link = tmp_path / "link.html"
+    link.symlink_to(real)
+    write_report("<p>new</p>", link)
+    assert link.is_symlink() and real.read_text(encoding="utf-8") == "<p>new</p>"

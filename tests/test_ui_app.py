@@ -120,7 +120,9 @@ def test_lab_command_prepare_only_starts_nothing(tmp_path, monkeypatch, capsys):
 
 def test_lab_command_hands_the_notebook_to_the_launcher(tmp_path, monkeypatch):
     started = []
-    monkeypatch.setattr(lab, "launch_lab", lambda notebook, browser=True: started.append((notebook, browser)) or 0)
+    monkeypatch.setattr(
+        lab, "launch_lab", lambda notebook, browser=True, **_options: started.append((notebook, browser)) or 0
+    )
     project = tmp_path / "p.json"
     shutil.copyfile(SAMPLES / "rare_pentose_epimerisation.json", project)
     assert main(["lab", str(project), "--no-browser"]) == 0

@@ -126,8 +126,9 @@ def _cmd_demo(args: argparse.Namespace) -> int:
 def _cmd_report(args: argparse.Namespace) -> int:
     from workbench.evidence.engine import solve
     from workbench.evidence.project import load_project
-    from workbench.report import render_report, write_report
+    from workbench.report import check_report_path, render_report, write_report
 
+    check_report_path(args.output, protect=(args.project,))  # refuse a bad output before the work
     project = load_project(args.project)
     solution = solve(project, disabled=tuple(args.without or ()))
     plan_result = None
@@ -144,7 +145,82 @@ def _cmd_report(args: argparse.Namespace) -> int:
     return EXIT_OK
 
 
-# ----------------------------------------------------------------- lab
+# ----------------------------------------------------------------- export / merge / schema
+def _write_or_print(text: str, output: str | None, protect: tuple[str, ...], what: str, example: str) -> None:
+    """``text`` to the file ``output`` (checked, atomic, umask) or to standard output."""
+    from workbench.files import check_output, write_text_atomic
+
+    if output is None:
+        sys.stdout.write(text)
+        return
+    target = check_output(output, protect, what=what, example=example)
+    written = write_text_atomic(target, text)
+    print(f"{what} written to {written}", file=sys.stderr)
+
+
+def _cmd_export(args: argparse.Namespace) -> int:
+    from workbench.evidence.engine import solve
+    from workbench.evidence.project import load_project
+    from workbench.export import export_text
+    from workbench.files import check_output
+
+    if args.output is not None:
+        check_output(args.output, (args.project,), what="export", example=f"survivors.{args.format}")
+    solution = solve(load_project(args.project))
+    if solution.contradictory:
+        sets = "; ".join("{" + ", ".join(c) + "}" for c in solution.conflicts)
+        print(f"stereosieve: the evidence is contradictory: {sets}; nothing survives to export", file=sys.stderr)
+        return EXIT_CONTRADICTION
+    _write_or_print(export_text(solution, args.format), args.output, (args.project,), "export", "survivors.sdf")
+    return EXIT_OK
+
+
+def _read_json(path: str) -> object:
+    """A parsed JSON file; :class:`ProjectError` naming the file when it cannot be read or parsed."""
+    from pathlib import Path
+
+    from workbench.errors import ProjectError
+
+    try:
+        return json.loads(Path(path).read_text(encoding="utf-8"))
+    except FileNotFoundError as err:
+        raise ProjectError(path, ["no such file"]) from err
+    except UnicodeDecodeError as err:
+        raise ProjectError(path, [f"not UTF-8 text ({err.reason} at byte {err.start})"]) from err
+    except json.JSONDecodeError as err:
+        raise ProjectError(path, [f"malformed JSON at line {err.lineno}, column {err.colno}: {err.msg}"]) from err
+    except OSError as err:
+        raise ProjectError(path, [f"cannot read the file: {err.strerror}"]) from err
+
+
+def _cmd_merge(args: argparse.Namespace) -> int:
+    from workbench.evidence.merge import merge_projects
+    from workbench.evidence.project import dumps_project
+    from workbench.files import check_output, write_text_atomic
+
+    target = check_output(args.output, (), what="merged project", example="merged.json")
+    merged = merge_projects(_read_json(args.first), _read_json(args.second), (args.first, args.second))
+    written = write_text_atomic(target, dumps_project(merged.project))
+    for note in merged.notes:
+        print(f"note: {note}")
+    project = merged.project
+    print(
+        f"merged {args.first} and {args.second} into {written}: {len(project.unknowns)} unknown(s), "
+        f"{len(project.observations)} observation(s); {len(merged.shared)} kept once, "
+        f"{len(merged.added)} added from {args.second}"
+    )
+    return EXIT_OK
+
+
+def _cmd_schema(args: argparse.Namespace) -> int:
+    from workbench.evidence.schema import project_schema
+
+    text = json.dumps(project_schema(), indent=2, ensure_ascii=False) + "\n"
+    _write_or_print(text, args.output, (), "schema", "project.schema.json")
+    return EXIT_OK
+
+
+# ----------------------------------------------------------------- lab / app
 def _cmd_lab(args: argparse.Namespace) -> int:
     from workbench.ui.notebook import launch_lab, prepare_lab
 
@@ -155,7 +231,18 @@ def _cmd_lab(args: argparse.Namespace) -> int:
     print(f"notebook {files.notebook}")
     if args.prepare_only:
         return EXIT_OK
-    code = launch_lab(files.notebook, browser=not args.no_browser)
+    code = launch_lab(files.notebook, browser=not args.no_browser, port=args.port, extra=args.passthrough)
+    return EXIT_OK if code == 0 else EXIT_BUG
+
+
+def _cmd_app(args: argparse.Namespace) -> int:
+    from workbench.ui.notebook import launch_app, prepare_project
+
+    project, created = prepare_project(args.project, directory=args.dir)
+    for path in created:
+        print(f"created {path}")
+    print(f"project  {project}")
+    code = launch_app(project, browser=not args.no_browser, port=args.port, extra=args.passthrough)
     return EXIT_OK if code == 0 else EXIT_BUG
 
 
@@ -197,7 +284,9 @@ def _cmd_mutarotation(args: argparse.Namespace) -> int:
     print(f"  equilibrium_rotation   {fit.equilibrium_rotation:.2f}")
     print(f"  rmse                   {fit.rmse:.3g}")
     if fit.beta_fraction is not None:
-        print(f"  beta_fraction          {fit.beta_fraction:.3f}  (two-state model, alpha {alpha:+.1f}, beta {beta:+.1f})")
+        print(
+            f"  beta_fraction          {fit.beta_fraction:.3f}  (two-state model, alpha {alpha:+.1f}, beta {beta:+.1f})"
+        )
         if rotation_source:
             print(f"  anomer rotations from  {rotation_source}")
     elif sugar is not None:
@@ -219,7 +308,14 @@ _HANDLERS: dict[str, Handler] = {
     "mutarotation": _cmd_mutarotation,
     "report": _cmd_report,
     "lab": _cmd_lab,
+    "app": _cmd_app,
+    "export": _cmd_export,
+    "merge": _cmd_merge,
+    "schema": _cmd_schema,
 }
+
+# Commands that hand the options after "--" to the server they start.
+_PASSTHROUGH = ("lab", "app")
 
 
 def build_parser() -> argparse.ArgumentParser:
@@ -270,16 +366,56 @@ def build_parser() -> argparse.ArgumentParser:
     lab.add_argument("--dir", default=".", help="where to put the demo copy when no project is given")
     lab.add_argument("--prepare-only", action="store_true", help="write the notebook, do not start JupyterLab")
     lab.add_argument("--no-browser", action="store_true", help="start JupyterLab without opening a browser")
+    lab.add_argument("--port", type=_port, metavar="N", help="serve on this port (default: JupyterLab's choice)")
+    lab.epilog = "Options after '--' go to JupyterLab unchanged, e.g. stereosieve lab p.json -- --ServerApp.token=abc"
+    ap = sub.add_parser("app", help="the workbench panels alone (no code) as a standalone page (Voila)")
+    ap.add_argument("project", nargs="?", help="project file (JSON); default: a copy of the demo project here")
+    ap.add_argument("--dir", default=".", help="where to put the demo copy when no project is given")
+    ap.add_argument("--port", type=_port, metavar="N", help="serve on this port (default 8866 or the next free)")
+    ap.add_argument("--no-browser", action="store_true", help="start the page server without opening a browser")
+    ap.epilog = "Options after '--' go to Voila unchanged."
+    ex = sub.add_parser("export", help="write the survivors of every unknown as SDF or CSV")
+    ex.add_argument("project", help="project file (JSON)")
+    ex.add_argument("--format", required=True, choices=["sdf", "csv"], help="SDF (RDKit, with properties) or CSV")
+    ex.add_argument("-o", "--output", metavar="FILE", help="where to write (default: standard output)")
+    me = sub.add_parser("merge", help="combine two collaborators' project files (clashing ids are named, exit 2)")
+    me.add_argument("first", metavar="A.json", help="the first project file (its title and order come first)")
+    me.add_argument("second", metavar="B.json", help="the second project file")
+    me.add_argument("-o", "--output", required=True, metavar="OUT.json", help="where to write the merged project")
+    sc = sub.add_parser("schema", help="print the JSON Schema (draft 2020-12) of the project file")
+    sc.add_argument("-o", "--output", metavar="FILE", help="where to write (default: standard output)")
     return parser
+
+
+def _port(text: str) -> int:
+    """A TCP port number for ``--port`` (1-65535)."""
+    try:
+        port = int(text)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"{text!r} is not a port number") from None
+    if not 0 < port < 65536:
+        raise argparse.ArgumentTypeError(f"{port} is not a port number from 1 to 65535")
+    return port
 
 
 def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the console script; returns the exit code."""
     parser = build_parser()
+    words = list(sys.argv[1:] if argv is None else argv)
+    passthrough: list[str] = []
+    if "--" in words:
+        cut = words.index("--")
+        words, passthrough = words[:cut], words[cut + 1 :]
     try:
-        args = parser.parse_args(argv)
+        args = parser.parse_args(words)
     except SystemExit as exc:  # argparse exits 2 on bad usage already
         return int(exc.code or 0)
+    if passthrough and args.command not in _PASSTHROUGH:
+        print(
+            f"stereosieve {args.command}: options after '--' are only for {' and '.join(_PASSTHROUGH)}", file=sys.stderr
+        )
+        return EXIT_BAD_INPUT
+    args.passthrough = passthrough
     try:
         return _HANDLERS[args.command](args)
     except BrokenPipeError:  # output piped into `head` and closed early: not an error of the input

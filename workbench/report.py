@@ -1,9 +1,13 @@
 """The shareable HTML report of a project: one self-contained file, no scripts, no external links.
 
 :func:`render_report` is pure (objects in, ``str`` out) and built from the
-display layer (:mod:`workbench.display`); :func:`write_report` is the file
-edge: it writes a temporary file beside the target and then replaces the
-target, so a failed write never leaves half a report or destroys the old one.
+display layer (:mod:`workbench.display`); it defends each answer by naming the
+closest rivals (:mod:`workbench.evidence.rivals`) with what removed them, and
+who recorded each observation and when. :func:`write_report` is the file
+edge: it refuses a folder, a device or the input project, then writes a
+temporary file beside the target and replaces the target
+(:func:`workbench.files.write_text_atomic`), so a failed write never leaves
+half a report or destroys the old one.
 """
 
 from __future__ import annotations
@@ -19,11 +23,18 @@ from workbench.display.board import board_html
 from workbench.display.chart import narrowing_chart
 from workbench.display.experiments import SAFETY_DEFERRAL, plan_html
 from workbench.display.palette import ACCENT, CONFLICT, FONT, INK, MUTED, esc
-from workbench.display.tables import conflicts_html, ledger_html, project_html, trail_html
-from workbench.errors import WorkbenchError
-from workbench.files import write_text_atomic
+from workbench.display.tables import (
+    conflicts_html,
+    ledger_html,
+    observation_values,
+    project_html,
+    table_html,
+    trail_html,
+)
+from workbench.evidence.rivals import closest_rivals
+from workbench.files import OutputError, check_output, write_text_atomic
 
-__all__ = ["ReportError", "render_report", "write_report"]
+__all__ = ["RIVALS_SHOWN", "ReportError", "check_report_path", "render_report", "rivals_html", "write_report"]
 
 log = logging.getLogger(__name__)
 
@@ -32,14 +43,48 @@ body {{ font-family: {FONT}; color: {INK}; max-width: 1100px; margin: 24px auto;
        background: #ffffff; line-height: 1.35; }}
 h1 {{ color: {ACCENT}; font-size: 22px; margin-bottom: 2px; }}
 h2 {{ color: {ACCENT}; font-size: 17px; border-bottom: 1px solid #d9d5cb; padding-bottom: 2px; margin-top: 26px; }}
+h3 {{ color: {INK}; font-size: 14px; margin: 12px 0 2px 0; }}
 .ss-meta {{ color: {MUTED}; font-size: 12px; }}
 .ss-summary li {{ margin: 2px 0; }}
 @media print {{ details {{ display: block; }} .ss-card {{ break-inside: avoid; }} }}
 """
 
 
-class ReportError(WorkbenchError, ValueError):
+class ReportError(OutputError):
     """The report cannot be written where asked; the message names the path and the fix."""
+
+
+RIVALS_SHOWN = 6
+"""How many rivals the report names per unknown."""
+
+
+def _recorded(obs) -> str:
+    """``by`` and ``recorded`` of an observation, or a dash."""
+    return " ".join(x for x in (obs.by, obs.recorded) if x) or "-"
+
+
+def rivals_html(solution, uid: str, limit: int = RIVALS_SHOWN) -> str:
+    """The closest rivals of ``uid``'s answer: each with what removed it, why, and who recorded that.
+
+    Survivors that rank below the leading one show their probability instead
+    (a uniform share until the evidence weighs them).
+    """
+    rivals = closest_rivals(solution, uid, limit)
+    if not rivals:
+        return f'<p class="ss-meta">{esc(uid)}: no rival; the scope holds one candidate.</p>'
+    project = solution.project
+    rows = []
+    for rival in rivals:
+        name = f"<b>{esc(display_name(rival.chain))}</b>"
+        if rival.survives:
+            share = f"{rival.probability:.0%}" if rival.probability is not None else "-"
+            rows.append((name, f"still possible ({esc(share)})", "-", "-", "-"))
+            continue
+        obs = project.observation(rival.removed_by)
+        evidence = f"<b>{esc(obs.id)}</b> {esc(obs.KIND)}: {esc(observation_values(obs))}"
+        rows.append((name, "eliminated", evidence, esc(rival.reason or "-"), esc(_recorded(obs))))
+    headers = ["rival", "status", "removed by", "why", "recorded by / when"]
+    return table_html(headers, rows, cls="ss-rivals", raw=True)
 
 
 def _summary(solution) -> str:
@@ -66,9 +111,11 @@ def _summary(solution) -> str:
 def render_report(project, solution, plan=None, generated: str | None = None) -> str:
     """A complete HTML document for ``project`` solved as ``solution``, with ``plan`` if given.
 
-    Sections: summary, conflicts, unknowns, evidence ledger, narrowing (chart
-    and table), each unknown's survivors (Fischer projections) and eliminated
-    candidates with reasons, next experiments with cautions. ``generated`` is
+    Sections: summary, conflicts, unknowns, closest rivals, evidence ledger
+    (with who recorded each observation and when), narrowing (chart and
+    table), each unknown's survivors (Fischer projections) and eliminated
+    candidates with reasons (latest removed first), next experiments with
+    cautions. ``generated`` is
     the time stamp to print (default: now, ISO 8601, to the minute).
     """
     stamp = generated or _dt.datetime.now().astimezone().isoformat(timespec="minutes")
@@ -90,6 +137,15 @@ def render_report(project, solution, plan=None, generated: str | None = None) ->
     if solution.contradictory:
         parts += ["<h2>Contradictions</h2>", conflicts_html(solution)]
     parts += ["<h2>Unknowns</h2>", project_html(project)]
+    parts.append("<h2>Closest rivals</h2>")
+    parts.append(
+        '<p class="ss-meta">The candidates that lasted longest or rank next, with the observation that removed '
+        "each, the reason, and who recorded it when.</p>"
+    )
+    for uid in project.unknown_ids:
+        unknown = project.unknown(uid)
+        label = f" ({unknown.label})" if unknown.label else ""
+        parts += [f"<h3>{esc(uid)}{esc(label)}</h3>", rivals_html(solution, uid)]
     parts += ["<h2>Evidence ledger</h2>", ledger_html(project, solution)]
     parts += ["<h2>Narrowing</h2>", narrowing_chart(solution), trail_html(solution)]
     parts.append("<h2>Candidates</h2>")
@@ -106,23 +162,24 @@ def render_report(project, solution, plan=None, generated: str | None = None) ->
 
 
 def write_report(text: str, path: str | os.PathLike[str], protect: tuple[str | os.PathLike[str], ...] = ()) -> Path:
-    """Write ``text`` to ``path`` atomically; refuse to overwrite any file in ``protect``.
+    """Write ``text`` to ``path`` atomically; refuse a folder, a device, a missing folder or a ``protect`` file.
 
-    Raises :class:`ReportError` when the folder does not exist, the path is a
-    folder, or the path is a protected file (such as the project itself).
+    Raises :class:`ReportError` naming the path and what to do instead. The
+    file follows the user's umask; a symlink at ``path`` has its target
+    written. Returns ``path``.
     """
-    target = Path(path)
-    if target.is_dir():
-        raise ReportError(f"{target}: is a folder; give a file name such as {target / 'report.html'}")
-    folder = target.parent if str(target.parent) else Path(".")
-    if not folder.is_dir():
-        raise ReportError(f"{target}: the folder {folder} does not exist; create it or choose another path")
-    for other in protect:
-        if Path(other).exists() and target.exists() and target.resolve() == Path(other).resolve():
-            raise ReportError(f"{target}: refusing to overwrite the project file with the report; choose another name")
+    target = check_report_path(path, protect)
     try:
         write_text_atomic(target, text)
     except OSError as err:
         raise ReportError(f"{target}: cannot write the report ({err.strerror})") from err
     log.info("report written to %s (%d characters)", target, len(text))
     return target
+
+
+def check_report_path(path: str | os.PathLike[str], protect: tuple[str | os.PathLike[str], ...] = ()) -> Path:
+    """``path`` if a report may be written there, else :class:`ReportError` (see :func:`write_report`)."""
+    try:
+        return check_output(path, protect, what="report", example="report.html")
+    except OutputError as err:
+        raise ReportError(str(err)) from err

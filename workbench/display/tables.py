@@ -148,11 +148,13 @@ def trail_html(solution) -> str:
 def eliminated_html(solution, uid: str, limit: int = 250) -> str:
     """Each eliminated candidate of ``uid`` with the observation that removed it and why.
 
-    Rows follow the trail; beyond ``limit`` rows the rest are counted per observation.
+    Rows follow the trail backwards (latest removed first), so the closest rivals,
+    removed by the last observations, always head the table; beyond ``limit``
+    rows the rest are counted per observation.
     """
     rows: list[tuple[str, str, str]] = []
     overflow: dict[str, int] = {}
-    for step in solution.trail:
+    for step in reversed(solution.trail):
         reasons = step.reasons.get(uid, {})
         for chain in step.eliminated.get(uid, ()):
             if len(rows) >= limit:

@@ -1,0 +1,145 @@
+"""``stereosieve schema``: the JSON Schema of the project file, checked with the jsonschema package.
+
+The valid and invalid instances below are generated from the same FieldSpec rows the loader uses, so a
+kind added later is covered without editing this file; the loader is the judge of what is valid.
+"""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import jsonschema
+import pytest
+
+from workbench.cli import main
+from workbench.data import DEMO_PROJECT, data_path
+from workbench.errors import ObservationError
+from workbench.evidence import dumps_project, load_project
+from workbench.evidence.observations import OBSERVATION_TYPES, observation_from_dict
+from workbench.evidence.schema import DIALECT, project_schema
+
+ROOT = Path(__file__).resolve().parent.parent
+PROJECT_FILES = sorted((ROOT / "sample_projects").glob("*.json")) + sorted((ROOT / "tests" / "data").glob("*.json"))
+PROJECT_FILES.append(data_path(DEMO_PROJECT))
+
+
+@pytest.fixture(scope="module")
+def validator():
+    schema = project_schema()
+    jsonschema.Draft202012Validator.check_schema(schema)
+    return jsonschema.Draft202012Validator(schema)
+
+
+def _wrap(*observations, **top):
+    data = {"format": "stereosieve-project", "version": 1, "title": "t", "unknowns": [{"id": "U1"}]}
+    data["observations"] = list(observations)
+    data.update(top)
+    return data
+
+
+def test_the_schema_is_draft_2020_12():
+    schema = project_schema()
+    assert schema["$schema"] == DIALECT == "https://json-schema.org/draft/2020-12/schema"
+    assert set(schema["$defs"]) >= {f"observation_{k}" for k in OBSERVATION_TYPES}
+
+
+@pytest.mark.parametrize("path", PROJECT_FILES, ids=lambda p: p.name)
+def test_every_project_file_validates(validator, path):
+    data = json.loads(path.read_text(encoding="utf-8"))
+    load_project(path)  # the loader accepts it ...
+    assert list(validator.iter_errors(data)) == []  # ... and so does the schema
+    # and what stereosieve itself writes back
+    assert list(validator.iter_errors(json.loads(dumps_project(load_project(path))))) == []
+
+
+def _valid_value(spec):
+    """A value the loader accepts for ``spec`` (references point at U1 or a known sugar)."""
+    if spec.type in ("unknown", "member"):
+        return "U1"
+    if spec.type == "members":
+        return ["U1", "D-glucose", "D-mannose", "D-galactose"][: max(spec.min_items, 1)]
+    if spec.type == "choice":
+        return spec.choices[0]
+    if spec.type == "bool":
+        return True
+    if spec.type in ("int", "float"):
+        low = spec.minimum if spec.minimum is not None else 0
+        value = low if spec.maximum is None else (low + spec.maximum) / 2
+        return int(value) if spec.type == "int" else float(value)
+    return {"pair": "H1-H2"}.get(spec.name, "C6H12O6")
+
+
+def _valid_observation(kind):
+    data = {"id": "E1", "kind": kind, "note": "n", "by": "A. Chemist", "recorded": "2025-03-04T10:15+01:00"}
+    for spec in OBSERVATION_TYPES[kind].SPECS:
+        data[spec.name] = _valid_value(spec)
+    return data
+
+
+def _broken(kind):
+    """Observations of ``kind`` with one field wrong in form, each named."""
+    base = _valid_observation(kind)
+    out = {"extra field": {**base, "colour": "red"}, "bad date": {**base, "recorded": "last Tuesday"}}
+    out["no id"] = {k: v for k, v in base.items() if k != "id"}
+    for spec in OBSERVATION_TYPES[kind].SPECS:
+        if spec.required:
+            out[f"{spec.name} missing"] = {k: v for k, v in base.items() if k != spec.name}
+        wrong = {"bool": "yes", "int": "six", "float": "six", "members": "U1"}.get(spec.type, 12)
+        out[f"{spec.name} wrong type"] = {**base, spec.name: wrong}
+        if spec.type == "choice":
+            out[f"{spec.name} not a choice"] = {**base, spec.name: "something else"}
+        if spec.type in ("int", "float") and spec.maximum is not None:
+            out[f"{spec.name} too large"] = {**base, spec.name: spec.maximum + 1}
+        if spec.type in ("int", "float") and spec.minimum is not None:
+            out[f"{spec.name} too small"] = {**base, spec.name: spec.minimum - 1}
+        if spec.type == "members" and spec.min_items > 1:
+            out[f"{spec.name} too few"] = {**base, spec.name: ["U1"]}
+        if spec.type == "members":
+            out[f"{spec.name} repeated"] = {**base, spec.name: ["U1", "U1"]}
+    return out
+
+
+@pytest.mark.parametrize("kind", list(OBSERVATION_TYPES))
+def test_schema_and_loader_agree_on_every_kind(validator, kind):
+    good = _valid_observation(kind)
+    observation_from_dict(good)
+    assert list(validator.iter_errors(_wrap(good))) == []
+    for fault, bad in _broken(kind).items():
+        with pytest.raises(ObservationError):
+            observation_from_dict(bad)
+        assert list(validator.iter_errors(_wrap(bad))), f"{kind}: schema accepts '{fault}'"
+
+
+@pytest.mark.parametrize(
+    "label, data",
+    [
+        ("wrong format", _wrap(format="something-else")),
+        ("version from the future", _wrap(version=99)),
+        ("version as text", _wrap(version="1")),
+        ("no unknowns", _wrap(unknowns=[])),
+        ("unknown without id", _wrap(unknowns=[{"label": "x"}])),
+        ("unknown with a stray field", _wrap(unknowns=[{"id": "U1", "colour": "red"}])),
+        ("scope key misspelt", _wrap(unknowns=[{"id": "U1", "scope": {"carbon": [6]}}])),
+        ("chain too long", _wrap(unknowns=[{"id": "U1", "scope": {"carbons": [12]}}])),
+        ("series not D or L", _wrap(unknowns=[{"id": "U1", "scope": {"series": ["R"]}}])),
+        ("unknown kind", _wrap({"id": "E1", "kind": "taste", "unknown": "U1"})),
+        ("top-level stray field", _wrap(author="me")),
+        ("observations not a list", _wrap(observations={"E1": {}})),
+    ],
+)
+def test_invalid_files_are_rejected(validator, tmp_path, label, data):
+    assert list(validator.iter_errors(data)), label
+    path = tmp_path / "bad.json"
+    path.write_text(json.dumps(data), encoding="utf-8")
+    assert main(["validate", str(path)]) == 2  # the loader rejects it too
+
+
+def test_schema_command_prints_and_writes_the_schema(tmp_path, capsys):
+    assert main(["schema"]) == 0
+    printed = json.loads(capsys.readouterr().out)
+    assert printed == project_schema()
+    target = tmp_path / "project.schema.json"
+    assert main(["schema", "-o", str(target)]) == 0
+    assert json.loads(target.read_text(encoding="utf-8")) == printed
+    assert main(["schema", "-o", str(tmp_path)]) == 2

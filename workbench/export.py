@@ -1,0 +1,123 @@
+"""The survivors of every unknown for other chemistry software: SDF (written by RDKit) and CSV.
+
+Pure: :func:`survivor_rows` takes a solution, :func:`sdf_text` and
+:func:`csv_text` return ``str``; the CLI writes the file. Each survivor is the
+open-chain structure (as ``solve --json`` gives it) with its probability
+(:func:`workbench.evidence.rivals.survivor_probabilities`: the posterior where
+the solution carries one, else a uniform share over the survivors).
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+from dataclasses import dataclass
+
+from rdkit import Chem
+from rdkit.Chem import rdDepictor
+
+from workbench.chem.chain import Chain
+from workbench.chem.names import display_name, systematic_name
+from workbench.chem.smiles import quiet_rdkit, to_inchi, to_inchikey, to_mol, to_smiles
+from workbench.evidence.rivals import survivor_probabilities
+
+__all__ = [
+    "CSV_COLUMNS",
+    "FORMATS",
+    "SDF_PROPERTIES",
+    "ExportRow",
+    "survivor_rows",
+    "sdf_text",
+    "csv_text",
+    "export_text",
+]
+
+CSV_COLUMNS = ("unknown", "name", "systematic_name", "smiles", "inchikey", "probability")
+SDF_PROPERTIES = ("unknown", "name", "systematic_name", "smiles", "inchi", "inchikey", "probability")
+FORMATS = ("sdf", "csv")
+
+
+@dataclass(frozen=True)
+class ExportRow:
+    """One survivor of one unknown, with its names, identifiers and probability (0-1)."""
+
+    unknown: str
+    chain: Chain
+    probability: float
+
+    @property
+    def name(self) -> str:
+        """The trivial name where there is one, else the systematic name."""
+        return display_name(self.chain)
+
+    @property
+    def systematic_name(self) -> str:
+        """The IUPAC configurational-prefix name."""
+        return systematic_name(self.chain)
+
+    @property
+    def smiles(self) -> str:
+        """Open-chain isomeric SMILES."""
+        return to_smiles(self.chain)
+
+    @property
+    def inchi(self) -> str:
+        """Standard InChI of the open chain."""
+        return to_inchi(self.chain)
+
+    @property
+    def inchikey(self) -> str:
+        """Standard InChIKey of the open chain."""
+        return to_inchikey(self.chain)
+
+    def value(self, key: str) -> str:
+        """The text of one column or property; probabilities with 6 decimals."""
+        if key == "probability":
+            return f"{self.probability:.6f}"
+        return str(getattr(self, key))
+
+
+def survivor_rows(solution) -> tuple[ExportRow, ...]:
+    """Every survivor of every unknown, unknowns in file order, most probable first within each."""
+    rows: list[ExportRow] = []
+    for uid in solution.project.unknown_ids:
+        shares = survivor_probabilities(solution, uid)
+        for chain in sorted(solution.survivors[uid], key=lambda c: -shares[c]):
+            rows.append(ExportRow(uid, chain, shares[chain]))
+    return tuple(rows)
+
+
+def sdf_text(rows: tuple[ExportRow, ...]) -> str:
+    """An SD file (V2000 with 2D coordinates, written by RDKit); the title line is the name."""
+    buffer = io.StringIO()
+    with quiet_rdkit():
+        writer = Chem.SDWriter(buffer)
+        for row in rows:
+            mol = Chem.Mol(to_mol(row.chain))
+            rdDepictor.Compute2DCoords(mol)
+            mol.SetProp("_Name", row.name)
+            for key in SDF_PROPERTIES:
+                mol.SetProp(key, row.value(key))
+            writer.write(mol)
+        writer.close()
+    return buffer.getvalue()
+
+
+def csv_text(rows: tuple[ExportRow, ...]) -> str:
+    """CSV with the header :data:`CSV_COLUMNS`, one line per survivor."""
+    buffer = io.StringIO()
+    writer = csv.writer(buffer, lineterminator="\n")
+    writer.writerow(CSV_COLUMNS)
+    for row in rows:
+        writer.writerow([row.value(key) for key in CSV_COLUMNS])
+    return buffer.getvalue()
+
+
+def export_text(solution, fmt: str) -> str:
+    """The survivors of ``solution`` as ``sdf`` or ``csv`` text."""
+    rows = survivor_rows(solution)
+    if fmt == "sdf":
+        return sdf_text(rows)
+    if fmt == "csv":
+        return csv_text(rows)
+    raise ValueError(f"export format {fmt!r} is not one of {', '.join(FORMATS)}")
