@@ -202,3 +202,35 @@ def test_product_relation_is_symmetric(a, b, reaction):
         assert isinstance(backward, NotApplicable)
     else:
         assert forward == backward
+
+
+def test_record_is_filled_lazily_one_field_at_a_time():
+    # the engine asks one experiment over thousands of candidates: only that field may be computed
+    from workbench.chem.predictions import Prediction
+
+    record = Prediction(resolve("D-gulose"))  # a fresh record, not the shared cached one
+    _ = record.aldaric_acid_active
+    assert "aldaric_acid_active" in vars(record)
+    assert not {"osazone", "periodate", "smith", "alditols", "chain_extension"} & set(vars(record))
+
+
+def test_engine_and_predict_read_the_same_record_for_the_tests():
+    # one rule, one place: the observation layer and predict --json agree on every test outcome
+    from workbench.evidence.observations import OBSERVATION_TYPES
+    from workbench.evidence.outcomes import predict as observed_outcome
+
+    for chain in catalogue(Scope(carbons=(4, 5, 6), modifications=("any",))):
+        data = predictions_json(chain)
+        for kind in ("bromine_water", "reducing_test", "ketose_test"):
+            probe = OBSERVATION_TYPES[kind]("?", unknown="U", result="positive" if "test" in kind else "oxidised")
+            assert observed_outcome(probe, chain) == data[kind]["result"]
+
+
+def test_fructose_is_reducing_and_gives_the_ketose_test():
+    # D-fructose reduces Fehling's solution and gives Seliwanoff's red colour (Carey ch. 25) [common practice]
+    from workbench.evidence.observations import OBSERVATION_TYPES
+    from workbench.evidence.outcomes import predict as observed_outcome
+
+    fru = resolve("D-fructose")
+    assert observed_outcome(OBSERVATION_TYPES["reducing_test"]("?", unknown="U", result="positive"), fru) == "positive"
+    assert observed_outcome(OBSERVATION_TYPES["ketose_test"]("?", unknown="U", result="positive"), fru) == "positive"

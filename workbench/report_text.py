@@ -29,12 +29,9 @@ def identity_json(chain: Chain) -> dict:
 def predict_json(chain: Chain) -> dict:
     """The ``predictions`` block of ``predict --json`` (keys in DESIGN.md)."""
     from workbench.chem.predictions import predictions_json
+    from workbench.conformers.summary import physical_json
 
     data = predictions_json(chain)
-    try:
-        from workbench.conformers.summary import physical_json
-    except ImportError:  # the conformer layer is optional at this stage
-        return data
     data.update(physical_json(chain))
     return data
 

@@ -15,13 +15,13 @@ import itertools
 import logging
 from collections.abc import Iterable
 from dataclasses import dataclass, field
-from functools import cache
 from typing import TYPE_CHECKING
 
 from workbench.chem import reactions
 from workbench.chem.catalogue import catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
+from workbench.chem.predictions import predict as record_of
 from workbench.evidence.network import Binary, components, enumerate_solutions, find_solution, supported_domains
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import fits, product_key
@@ -126,10 +126,8 @@ def _ref(project: Project, member: str) -> tuple[str, Chain | None]:
     return f"={member}", target
 
 
-@cache
 def _shortened(chain: Chain) -> Chain | None:
-    out = reactions.shorten(chain)
-    return out or None
+    return record_of(chain).chain_shortening
 
 
 def _extension_parent(chain: Chain) -> Chain | None:
@@ -319,7 +317,8 @@ def _explain_relational(project: Project, obs: Observation, uid: str, chain: Cha
         if mine is None:
             return f"it gives no {obs.reaction.replace('_', ' ')}"
         for ref in known:
-            theirs = product_key(obs.reaction, project.member(ref))
+            target = project.member(ref)
+            theirs = None if isinstance(target, str) else product_key(obs.reaction, target)
             if theirs is None:
                 continue
             rel = reactions.relation_of_sets(mine, theirs)

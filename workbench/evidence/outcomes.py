@@ -1,6 +1,9 @@
 """What each kind of experiment predicts for a candidate, and whether an observation fits.
 
-Unary kinds map a candidate to a predicted outcome (:func:`predict`); an
+Every prediction is read from the candidate's one cached record
+(:func:`workbench.chem.predictions.predict`); this module only maps an
+observation to the field it needs and compares. Unary kinds map a candidate
+to a predicted outcome (:func:`predict`); an
 observation fits a candidate when the observed value equals the prediction,
 or lies within the observation's tolerance for measured amounts
 (:func:`fits`). Relational kinds use product keys (:func:`product_key`): the
@@ -14,13 +17,11 @@ from __future__ import annotations
 
 import re
 from dataclasses import dataclass
-from functools import cache
 from typing import Any
 
-from workbench.chem import reactions
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
-from workbench.chem.smiles import ring_forms, to_smiles
+from workbench.chem.predictions import predict as record_of
 from workbench.evidence.observations import Observation
 
 __all__ = ["NO_PREDICTION", "Verdict", "predict", "fits", "product_key", "outcome_label", "formula_counts"]
@@ -46,34 +47,9 @@ class Verdict:
 
 
 # ---------------------------------------------------------------- predictions
-@cache
-def _aldaric_active(chain: Chain) -> bool | None:
-    acid = reactions.aldaric_acid(chain)
-    return reactions.is_optically_active(acid) if acid else None
-
-
-@cache
-def _alditol_active(chain: Chain) -> bool | None:
-    products = reactions.alditols(chain)
-    return reactions.is_optically_active(products) if products else None
-
-
-@cache
 def product_key(reaction: str, chain: Chain) -> frozenset[str] | None:
-    """Canonical SMILES of the products of ``reaction`` (None if none forms)."""
-    if reaction == "osazone":
-        p = reactions.osazone(chain)
-        return frozenset({to_smiles(p)}) if p else None
-    if reaction == "aldaric_acid":
-        p = reactions.aldaric_acid(chain)
-        return frozenset({to_smiles(p)}) if p else None
-    if reaction == "aldonic_acid":
-        p = reactions.aldonic_acid(chain)
-        return frozenset({to_smiles(p)}) if p else None
-    if reaction == "alditol":
-        ps = reactions.alditols(chain)
-        return frozenset(to_smiles(x) for x in ps) if ps else None
-    raise ValueError(f"unknown reaction {reaction!r}")
+    """Canonical SMILES of the products of ``reaction`` (None if none forms), from the chain's record."""
+    return record_of(chain).products(reaction) or None
 
 
 def formula_counts(text: str) -> dict[str, int] | None:
@@ -87,46 +63,33 @@ def formula_counts(text: str) -> dict[str, int] | None:
     return counts
 
 
-@cache
 def _periodate(chain: Chain, substrate: str) -> tuple[float, float, float, float] | None:
     """(IO4-, HCOOH, HCHO, CO2) in mol per mol substrate, or None if the substrate cannot exist."""
-    from workbench.chem.periodate import periodate_oxidation
-
-    result = periodate_oxidation(chain, substrate)
+    result = record_of(chain).periodate_for(substrate)
     if not result:
         return None
     return (float(result.periodate), float(result.formic_acid), float(result.formaldehyde), float(result.co2))
 
 
 def _physical(kind: str, chain: Chain, obs: Observation) -> Any:
-    try:
-        from workbench import conformers
-    except ImportError:
-        return NO_PREDICTION
-    needed = {"specific_rotation": "rotation_sign", "anomer_ratio": "anomer_fractions"}
-    if not hasattr(conformers, needed.get(kind, "ring_couplings")):
-        return NO_PREDICTION  # the physical layer is not installed in this build
+    record = record_of(chain)
     if kind == "specific_rotation":
-        record = conformers.published_rotation(chain)
-        if record is not None and record.equilibrium is not None:
-            return float(record.equilibrium)
-        sign = conformers.rotation_sign(chain)  # some sugars have only a published sign
+        published = record.rotation
+        if published is not None and published.equilibrium is not None:
+            return float(published.equilibrium)
+        sign = record.rotation_sign  # some sugars have only a published sign
         return NO_PREDICTION if sign is None else ("sign", sign)
     if kind == "anomer_ratio":
         if chain.carbonyl == "ketose":
             # Angyal's pyranose scheme misses D-fructose by 0.2 (0.26 vs 0.03 alpha of the pyranoses;
             # Barclay et al., Carbohydr. Res. 347, 136, 2012), so ketoses are kept, not judged
             return NO_PREDICTION
-        fr = conformers.anomer_fractions(chain)
-        a, b = fr.get("alpha_pyranose"), fr.get("beta_pyranose")
-        if a is None or b is None or a + b <= 0:
-            return NO_PREDICTION
-        return a / (a + b)
+        alpha = record.pyranose_alpha
+        return NO_PREDICTION if alpha is None else alpha
     if kind == "coupling_constant":
-        if obs.form not in {f.key for f in ring_forms(chain)}:
+        if obs.form not in record.ring_form_keys:
             return None  # this ring form cannot exist for the candidate
-        per_form = conformers.ring_couplings(chain)
-        value = per_form.get(obs.form, {}).get(obs.pair)  # furanoses: no fast prediction, kept
+        value = record.couplings.get(obs.form, {}).get(obs.pair)  # furanoses: no fast prediction, kept
         return NO_PREDICTION if value is None else float(value)
     raise ValueError(kind)
 
@@ -143,15 +106,15 @@ def predict(obs: Observation, chain: Chain) -> Any:
     if kind == "series":
         return chain.series
     if kind == "bromine_water":
-        return "oxidised" if chain.carbonyl == "aldose" else "unchanged"
+        return record_of(chain).bromine_water.result
     if kind == "reducing_test":
-        return "positive" if chain.carbonyl in ("aldose", "ketose") else "negative"
+        return record_of(chain).reducing_test.result
     if kind == "ketose_test":
-        return "positive" if chain.carbonyl == "ketose" else "negative"
+        return record_of(chain).ketose_test.result
     if kind == "aldaric_acid":
-        return _aldaric_active(chain)
+        return record_of(chain).aldaric_acid_active
     if kind == "alditol":
-        return _alditol_active(chain)
+        return record_of(chain).alditol_active
     if kind == "molecular_formula":
         return chain.formula
     if kind == "periodate":

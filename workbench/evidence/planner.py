@@ -32,6 +32,7 @@ from workbench.chem import reactions
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.parse import resolve
+from workbench.chem.predictions import predict as record_of
 from workbench.evidence.costs import Cost, cautions_of, cost_of
 from workbench.evidence.engine import Solution, joint_worlds, solve
 from workbench.evidence.observations import OBSERVATION_TYPES
@@ -73,7 +74,6 @@ REFERENCE_SUGARS: tuple[str, ...] = (
 )
 
 _TOLERANCE = {"periodate": 0.2, "specific_rotation": 5.0, "anomer_ratio": 0.1, "coupling_constant": 1.5}
-_PAIRS = ("H1-H2", "H2-H3", "H3-H4", "H4-H5")
 
 
 @dataclass(frozen=True)
@@ -206,10 +206,10 @@ def _reference(name: str) -> Chain:
 def _aldaric_word(chain: Chain | None) -> str:
     if chain is None:
         return "no product"
-    acid = reactions.aldaric_acid(chain)
-    if not acid:
+    active = record_of(chain).aldaric_acid_active
+    if active is None:
         return "no aldaric acid"
-    return "active" if reactions.is_optically_active(acid) else "meso"
+    return "active" if active else "meso"
 
 
 def _unary_outcomes(kind: str, params: dict, survivors: Sequence[Chain]) -> dict[Chain, Hashable]:
@@ -232,13 +232,9 @@ def _unary_outcomes(kind: str, params: dict, survivors: Sequence[Chain]) -> dict
 
 def _coupling_pairs(survivors: Sequence[Chain], form: str) -> list[str]:
     """Proton pairs with a predicted coupling in ``form`` for any survivor (ring order)."""
-    try:
-        from workbench.conformers import ring_couplings
-    except ImportError:
-        return list(_PAIRS)
     seen: dict[str, None] = {}
     for chain in survivors[:64]:
-        for pair in ring_couplings(chain).get(form, {}):
+        for pair in record_of(chain).couplings.get(form, {}):
             seen.setdefault(pair, None)
     return list(seen)
 
@@ -293,14 +289,14 @@ def _experiments_for(
     def extension(s: Sequence[Chain]) -> dict[Chain, Hashable]:
         res: dict[Chain, Hashable] = {}
         for c in s:
-            prods = reactions.extend(c)
+            prods = record_of(c).chain_extension
             res[c] = "+".join(sorted(_aldaric_word(p) for p in prods)) if prods else "does not apply"
         return res
 
     def shortening(s: Sequence[Chain]) -> dict[Chain, Hashable]:
         res: dict[Chain, Hashable] = {}
         for c in s:
-            prod = reactions.shorten(c)
+            prod = record_of(c).chain_shortening
             res[c] = _aldaric_word(prod) if prod else "does not apply"
         return res
 
