@@ -7,6 +7,7 @@ import pytest
 from workbench.chem import catalogue, from_name, resolve, systematic_name, to_inchikey, to_smiles, trivial_name
 from workbench.chem.catalogue import Scope
 from workbench.chem.names import configurational_prefix, ring_name
+from workbench.chem.parse import read_compound
 from workbench.chem.smiles import RingForm
 from workbench.errors import NameNotRecognisedError
 
@@ -110,10 +111,14 @@ def test_resolve_accepts_names_and_smiles():
 )
 def test_ring_form_names_resolve_to_the_ring_smiles(name, parent, form):
     chain, ring, anomer, methyl = ring_name(name)
-    assert chain == from_name(parent) == resolve(name)
     assert RingForm(ring, anomer, methyl) == form
+    compound = read_compound(name)
+    assert compound.chain == chain == from_name(parent)
+    assert compound.glycoside == (form if methyl else None)
     # the named ring form and the parsed ring SMILES agree (parse.from_smiles opens the ring)
-    assert resolve(to_smiles(chain, form)) == chain
+    assert read_compound(to_smiles(chain, form)) == compound
+    if not methyl:  # a free ring form is the sugar; a glycoside is not (2-Carb-33)
+        assert resolve(name) == chain
 
 
 def test_impossible_ring_form_name_is_refused():

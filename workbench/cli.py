@@ -25,10 +25,20 @@ def _print_json(data: object) -> None:
 
 # ----------------------------------------------------------------- predict
 def _cmd_predict(args: argparse.Namespace) -> int:
-    from workbench.chem.parse import resolve
-    from workbench.report_text import identity_json, predict_json, predict_text
+    from workbench.chem.parse import read_compound
+    from workbench.report_text import compound_text, identity_json, predict_json, predict_text
 
-    chain = resolve(args.sugar)
+    compound = read_compound(args.sugar)
+    chain = compound.chain
+    if compound.kind != "sugar":  # a methyl glycoside or an alditol is predicted as itself
+        from workbench.chem.derivatives import compound_json
+
+        data = compound_json(compound)
+        if args.json:
+            _print_json(data)
+        else:
+            print(compound_text(data))
+        return EXIT_OK
     if args.json:
         data = identity_json(chain)
         data["predictions"] = predict_json(chain)

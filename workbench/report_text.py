@@ -10,7 +10,7 @@ from workbench.chem.chain import Chain
 from workbench.chem.names import display_name, systematic_name
 from workbench.chem.smiles import to_inchikey, to_smiles
 
-__all__ = ["identity_json", "predict_json", "predict_text"]
+__all__ = ["identity_json", "predict_json", "predict_text", "compound_text"]
 
 
 def identity_json(chain: Chain) -> dict:
@@ -49,6 +49,23 @@ def predict_text(chain: Chain) -> str:
     for key in _TEXT_KEYS:
         if key in data:
             lines.append(f"  {key}: {_short(data[key])}")
+    return "\n".join(lines)
+
+
+def compound_text(data: dict) -> str:
+    """A readable summary of a glycoside's or alditol's prediction (``chem.derivatives.compound_json``)."""
+    kind = data["compound"] + (f" of {data['parent']}" if data.get("parent") else "")
+    lines = [
+        f"{data['name']}  ({kind}; {data['systematic_name']})",
+        f"  formula {data['formula']}, series {data['series'] or '-'}",
+        f"  SMILES   {data['smiles']}",
+        f"  InChIKey {data['inchikey']}",
+    ]
+    predictions = data["predictions"]
+    for key in _TEXT_KEYS:
+        if key in predictions:
+            why = predictions["not_applicable"].get(key)
+            lines.append(f"  {key}: {_short(predictions[key])}" + (f" ({why})" if why else ""))
     return "\n".join(lines)
 
 

@@ -62,6 +62,7 @@ GROUPS: dict[str, Group] = {
         Group("CH2", False, True, False, 2, (), (1, 2, 0, 0), "methylene (deoxy)"),
         Group("CHOH", False, True, True, 1, ("O",), (1, 2, 0, 1), "secondary alcohol"),
         Group("CHNH2", False, True, True, 1, ("N",), (1, 3, 1, 0), "amine"),
+        Group("CHNHAc", False, True, True, 1, ("NC(C)=O",), (3, 5, 1, 1), "acetamido (N-acetyl amine)"),
         Group("CHOMe", False, True, True, 1, ("OC",), (2, 4, 0, 1), "methyl ether"),
         Group("COOH", True, False, False, 0, ("=O", "O"), (1, 1, 0, 2), "carboxylic acid"),
         Group("CHNNPh", True, False, False, 1, ("=NN" + _PH,), (7, 7, 2, 0), "phenylhydrazone"),
@@ -71,7 +72,7 @@ GROUPS: dict[str, Group] = {
 STEREO_GROUPS = frozenset(code for code, g in GROUPS.items() if g.stereo)
 
 # The heteroatom (as written in ``branches``) that decides a stereocentre's side.
-_SIDE_ATOM = {"CHOH": "O", "CHNH2": "N", "CHOMe": "O"}
+_SIDE_ATOM = {"CHOH": "O", "CHNH2": "N", "CHNHAc": "N", "CHOMe": "O"}
 
 
 @dataclass(frozen=True)
@@ -139,6 +140,12 @@ class Chain:
         return self.carbonyl is not None and self.groups.count("CO") + self.groups.count("CHO") == 1
 
     @property
+    def is_alditol(self) -> bool:
+        """A parent alditol: CH2OH, CH(OH) only, CH2OH (the borohydride product of a parent aldose)."""
+        inner = set(self.groups[1:-1])
+        return self.carbons >= 3 and self.groups[0] == self.groups[-1] == "CH2OH" and inner <= {"CHOH"}
+
+    @property
     def series(self) -> str | None:
         """``"D"`` or ``"L"`` from the highest-numbered stereocentre (2-Carb-4.2)."""
         if not self.stereocentres:
@@ -168,6 +175,16 @@ class Chain:
     def amino_positions(self) -> tuple[int, ...]:
         """Carbons that carry NH2 in place of OH."""
         return tuple(i + 1 for i, code in enumerate(self.groups) if code == "CHNH2")
+
+    @cached_property
+    def acetamido_positions(self) -> tuple[int, ...]:
+        """Carbons that carry NHAc (an N-acetylated amino group) in place of OH."""
+        return tuple(i + 1 for i, code in enumerate(self.groups) if code == "CHNHAc")
+
+    @property
+    def has_nitrogen(self) -> bool:
+        """True for amino and N-acetyl amino sugars (models calibrated on O-sugars do not cover them)."""
+        return bool(self.amino_positions or self.acetamido_positions)
 
     @cached_property
     def methoxy_positions(self) -> tuple[int, ...]:

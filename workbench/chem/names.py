@@ -16,7 +16,7 @@ import difflib
 import re
 from functools import lru_cache
 
-from workbench.chem.chain import LEFT, RIGHT, Chain
+from workbench.chem.chain import LEFT, RIGHT, STEREO_GROUPS, Chain
 from workbench.chem.smiles import RingForm, ring_forms
 from workbench.errors import NameNotRecognisedError
 
@@ -30,6 +30,8 @@ __all__ = [
     "from_name",
     "known_names",
     "ring_name",
+    "is_alditol",
+    "alditol_names",
 ]
 
 # D-prefixes: sides of the centres from the lowest- to the highest-numbered
@@ -56,6 +58,8 @@ _PATTERN_OF = {v: k for k, v in PREFIXES.items()}
 _STEMS = {3: "tri", 4: "tetr", 5: "pent", 6: "hex", 7: "hept", 8: "oct", 9: "non"}
 _STEM_CARBONS = {v: k for k, v in _STEMS.items()}
 _MULTIPLIERS = {1: "", 2: "di", 3: "tri", 4: "tetra"}
+# Alditols (IUPAC-IUBMB 2-Carb-19): old names in use for one alditol, read but never written.
+_ALDITOL_SYNONYMS = {"sorbitol": "D-glucitol", "dulcitol": "galactitol", "adonitol": "ribitol"}
 
 # Trivial names of the D-enantiomer (the L form is named by mirror image).
 # Sources: IUPAC-IUBMB 1996 (2-Carb-8, -10, -11, -20); Collins and Ferrier,
@@ -93,9 +97,6 @@ TRIVIAL: dict[str, str] = {
     "quinovose": "6-deoxy-D-gluco-hexose",
     "digitoxose": "2,6-dideoxy-D-ribo-hexose",
     "olivose": "2,6-dideoxy-D-arabino-hexose",
-    "abequose": "3,6-dideoxy-D-xylo-hexose",
-    "tyvelose": "3,6-dideoxy-D-arabino-hexose",
-    "paratose": "3,6-dideoxy-D-ribo-hexose",
     "glucosamine": "2-amino-2-deoxy-D-gluco-hexose",
     "galactosamine": "2-amino-2-deoxy-D-galacto-hexose",
     "mannosamine": "2-amino-2-deoxy-D-manno-hexose",
@@ -107,6 +108,16 @@ TRIVIAL: dict[str, str] = {
     "guluronic acid": "D-gulo-hexuronic acid",
     "iduronic acid": "D-ido-hexuronic acid",
 }
+# N-acetyl amino sugars (2-Carb-11: 2-acetamido-2-deoxy-D-glucose = N-acetyl-D-glucosamine).
+TRIVIAL.update(
+    {
+        f"N-acetyl-{{s}}-{name}": systematic.replace("2-amino-2-deoxy-", "2-acetamido-2-deoxy-").replace(
+            "2-amino-2,6-dideoxy-", "2-acetamido-2,6-dideoxy-"
+        )
+        for name, systematic in list(TRIVIAL.items())
+        if name.endswith("osamine")
+    }
+)
 
 
 def _with_series(trivial: str, series: str) -> str:
@@ -114,10 +125,25 @@ def _with_series(trivial: str, series: str) -> str:
     return trivial.format(s=series) if "{s}" in trivial else f"{series}-{trivial}"
 
 
-# Names that exist only as one enantiomer's name.
+# Names whose definition includes the configuration (IUPAC-IUBMB 1996, 2-Carb-10
+# list of trivial names of deoxy sugars [from memory]): the bare name means that
+# enantiomer; the same series written out is accepted (``L-colitose``); the other
+# series is refused with the mirror image's own name (``L-abequose`` -> colitose).
 _ONE_SERIES = {
+    "abequose": "3,6-dideoxy-D-xylo-hexose",
+    "tyvelose": "3,6-dideoxy-D-arabino-hexose",
+    "paratose": "3,6-dideoxy-D-ribo-hexose",
     "colitose": "3,6-dideoxy-L-xylo-hexose",
     "ascarylose": "3,6-dideoxy-L-arabino-hexose",
+}
+# Trivial names whose natural series is so conventional that chemists omit it
+# (2-deoxyribose of DNA; the digitoxose and olivose of cardiac glycosides and
+# antibiotics): the bare name is read as that series, and the result states it
+# (``D-digitoxose``). Other bare names (glucose, fucose) need their D- or L-.
+_NATURAL_SERIES = {
+    "2-deoxyribose": ("2-deoxy-{s}-ribose", "D"),
+    "digitoxose": ("digitoxose", "D"),
+    "olivose": ("olivose", "D"),
 }
 # Old names of one enantiomer, read but never written.
 _SYNONYMS = {"dextrose": "D-gluco-hexose", "levulose": "D-arabino-hex-2-ulose"}
@@ -154,9 +180,12 @@ def configurational_prefix(sides: list[str]) -> str:
 def _modifier_words(chain: Chain) -> str:
     """``2-amino-2,6-dideoxy-3-O-methyl-`` style substituent prefixes."""
     amino = list(chain.amino_positions)
-    deoxy = sorted(set(chain.deoxy_positions) | set(amino))
+    acetamido = list(chain.acetamido_positions)
+    deoxy = sorted(set(chain.deoxy_positions) | set(amino) | set(acetamido))
     methyl = list(chain.methoxy_positions)
-    words = []
+    words = []  # substituent prefixes in alphabetical order (2-Carb-11: 2-acetamido-2-deoxy-)
+    if acetamido:
+        words.append(f"{','.join(map(str, acetamido))}-{_MULTIPLIERS[len(acetamido)]}acetamido")
     if amino:
         words.append(f"{','.join(map(str, amino))}-{_MULTIPLIERS[len(amino)]}amino")
     if deoxy:
@@ -182,8 +211,10 @@ def _stem(chain: Chain) -> str:
 @lru_cache(maxsize=65536)
 def systematic_name(chain: Chain) -> str:
     """IUPAC-IUBMB systematic name of a sugar, e.g. ``6-deoxy-L-manno-hexose``."""
+    if is_alditol(chain):
+        return alditol_names(chain)[1]
     if not chain.is_sugar:
-        raise NameNotRecognisedError(chain.pattern, "only aldoses and 2-ketoses are named here")
+        raise NameNotRecognisedError(chain.pattern, "only aldoses, 2-ketoses and parent alditols are named here")
     if chain.carbons == 3 and chain.carbonyl == "ketose" and not chain.deoxy_positions:
         return "1,3-dihydroxypropan-2-one"
     sides = [chain.sides[k - 1] or RIGHT for k in chain.stereocentres]
@@ -206,7 +237,9 @@ def _trivial_by_systematic() -> dict[str, str]:
 
 @lru_cache(maxsize=65536)
 def trivial_name(chain: Chain) -> str | None:
-    """Trivial name in common use (``L-rhamnose``), or None where there is none."""
+    """Trivial name in common use (``L-rhamnose``, ``D-glucitol``), or None where there is none."""
+    if is_alditol(chain):
+        return alditol_names(chain)[0]
     if not chain.is_sugar:
         return None
     return _trivial_by_systematic().get(systematic_name(chain))
@@ -219,12 +252,20 @@ def display_name(chain: Chain) -> str:
 
 
 _SYSTEMATIC = re.compile(
-    r"^(?P<mods>(?:[0-9,]+-(?:di|tri|tetra)?(?:amino|deoxy|O-methyl)-)*)"
+    r"^(?P<mods>(?:[0-9,]+-(?:di|tri|tetra)?(?:acetamido|amino|deoxy|O-methyl)-)*)"
     r"(?P<prefixes>(?:[DL]-[a-z]+-)*)"
     r"(?P<stem>tri|tetr|pent|hex|hept|oct|non)"
     r"(?P<end>ose|ulose|-2-ulose|uronic acid)$"
 )
-_MOD = re.compile(r"([0-9,]+)-(?:di|tri|tetra)?(amino|deoxy|O-methyl)-")
+_MOD = re.compile(r"([0-9,]+)-(?:di|tri|tetra)?(acetamido|amino|deoxy|O-methyl)-")
+
+
+def _read_modifiers(text: str) -> dict[str, set[int]]:
+    """Locants of each substituent prefix in ``2-acetamido-2,6-dideoxy-`` style text."""
+    mods: dict[str, set[int]] = {"acetamido": set(), "amino": set(), "deoxy": set(), "O-methyl": set()}
+    for locants, word in _MOD.findall(text):
+        mods[word].update(int(x) for x in locants.split(",") if x)
+    return mods
 
 
 def from_systematic(name: str) -> Chain:
@@ -239,27 +280,26 @@ def from_systematic(name: str) -> Chain:
     end = m["end"]
     ketose = "ulose" in end
     uronic = end == "uronic acid"
-    mods: dict[str, set[int]] = {"amino": set(), "deoxy": set(), "O-methyl": set()}
-    for locants, word in _MOD.findall(m["mods"]):
-        mods[word].update(int(x) for x in locants.split(",") if x)
+    mods = _read_modifiers(m["mods"])
     groups = ["CHOH"] * n
     groups[0] = "CH2OH" if ketose else "CHO"
     groups[-1] = "COOH" if uronic else "CH2OH"
     if ketose:
         groups[1] = "CO"
-    for k in mods["deoxy"] - mods["amino"]:
+    for k in mods["deoxy"] - mods["amino"] - mods["acetamido"]:
         if not 1 <= k <= n or groups[k - 1] in ("CHO", "CO"):
             raise NameNotRecognisedError(name, f"no deoxy position {k} in a {n}-carbon chain")
         groups[k - 1] = "CH3" if k in (1, n) else "CH2"
-    for k in mods["amino"]:
-        if k not in mods["deoxy"] or groups[k - 1] != "CHOH":
-            raise NameNotRecognisedError(name, f"amino sugars are named '{k}-amino-{k}-deoxy' at a CH(OH)")
-        groups[k - 1] = "CHNH2"
+    for word, code in (("amino", "CHNH2"), ("acetamido", "CHNHAc")):
+        for k in mods[word]:
+            if k not in mods["deoxy"] or not 1 <= k <= n or groups[k - 1] != "CHOH":
+                raise NameNotRecognisedError(name, f"{word} sugars are named '{k}-{word}-{k}-deoxy' at a CH(OH)")
+            groups[k - 1] = code
     for k in mods["O-methyl"]:
-        if groups[k - 1] != "CHOH":
+        if not 1 <= k <= n or groups[k - 1] != "CHOH":
             raise NameNotRecognisedError(name, f"O-methyl at C-{k} needs a secondary hydroxyl")
         groups[k - 1] = "CHOMe"
-    stereo = [i for i, g in enumerate(groups) if g in ("CHOH", "CHNH2", "CHOMe")]
+    stereo = [i for i, g in enumerate(groups) if g in STEREO_GROUPS]
     words = [w for w in m["prefixes"].split("-") if w]
     chunks = [(words[i], words[i + 1]) for i in range(0, len(words), 2)]
     patterns = []
@@ -310,6 +350,7 @@ def _trivial_lookup() -> dict[str, str]:
 
 
 def _pretty(key: str) -> str:
+    key = re.sub(r"^n-acetyl", "N-acetyl", key)
     return re.sub(r"(^|-)([dl])-", lambda m: m[1] + m[2].upper() + "-", key)
 
 
@@ -319,23 +360,24 @@ def known_names() -> list[str]:
 
 
 _RING_NAME = re.compile(
-    r"^(?P<methyl>methyl )?(?P<anomer>alpha|beta)-(?P<series>[DL])-(?P<root>[a-z]+?)"
+    r"^(?P<methyl>methyl )?(?:(?P<anomer>alpha|beta)-)?(?P<series>[DL])-(?P<root>[a-z]+?)"
     r"(?P<ring>pyranose|furanose|pyranoside|furanoside)$"
 )
 
 
-def ring_name(text: str) -> tuple[Chain, str, str, bool] | None:
-    """Parse ``alpha-D-glucopyranose`` or ``methyl beta-D-fructofuranoside``.
+def ring_name(text: str) -> tuple[Chain, str, str | None, bool] | None:
+    """Parse ``alpha-D-glucopyranose``, ``D-fructofuranose`` or ``methyl beta-D-fructofuranoside``.
 
-    Returns (parent chain, ring, anomer, methyl glycoside?) or None when the
-    text is not such a name. The root is the trivial name less its final
-    "se" (gluco-, fructo-, rhamno-), as in IUPAC-IUBMB 2-Carb-6 and 2-Carb-33.
+    Returns (parent chain, ring, anomer or None when the name gives none,
+    methyl glycoside?) or None when the text is not such a name. The root is
+    the trivial name less its final "se" (gluco-, fructo-, rhamno-), as in
+    IUPAC-IUBMB 2-Carb-6 and 2-Carb-33. A glycoside needs its anomer.
     """
     m = _RING_NAME.match(_normalise(text))
     if not m:
         return None
     glycoside = m["ring"].endswith("side")
-    if glycoside != bool(m["methyl"]):
+    if glycoside != bool(m["methyl"]) or (glycoside and not m["anomer"]):
         return None
     lookup = _trivial_lookup()
     for trivial in TRIVIAL:
@@ -343,35 +385,231 @@ def ring_name(text: str) -> tuple[Chain, str, str, bool] | None:
             continue
         chain = from_systematic(lookup[_with_series(trivial, m["series"]).lower()])
         ring = "pyranose" if m["ring"].startswith("pyranos") else "furanose"
-        if RingForm(ring, m["anomer"]) not in ring_forms(chain):
+        if RingForm(ring, m["anomer"] or "alpha") not in ring_forms(chain):
             raise NameNotRecognisedError(text, f"{display_name(chain)} cannot close a {ring} ring")
         return chain, ring, m["anomer"], glycoside
     return None
+
+
+# ------------------------------------------------------------------ alditols
+_ALDITOL_NAME = re.compile(r"^(?:(?P<series>[DL])-)?(?P<root>[a-z]+)itol$")
+_SYSTEMATIC_ALDITOL = re.compile(r"^(?:(?P<series>[DL])-)?(?P<prefix>[a-z]+)-(?P<stem>tetr|pent|hex|hept|oct|non)itol$")
+
+
+def is_alditol(chain: Chain) -> bool:
+    """True for a parent alditol: CH2OH, then CH(OH) only, then CH2OH (no carbonyl, no modification)."""
+    return chain.is_alditol
+
+
+def _alditol_candidates(chain: Chain) -> list[tuple[str, str, str]]:
+    """(root, series, aldose trivial name) for each reading of ``chain`` as a reduced aldose."""
+    out = []
+    for reading in (chain, chain.reversed()):
+        aldose = reading.replace(1, "CHO")
+        trivial = trivial_name(aldose)
+        if trivial is None or chain.carbons < 4:
+            continue
+        series, _, base = trivial.partition("-")
+        out.append((base[:-3], series, systematic_name(aldose)))
+    return out
+
+
+def alditol_names(chain: Chain) -> tuple[str, str]:
+    """(trivial, systematic) name of a parent alditol, IUPAC-IUBMB 2-Carb-19.
+
+    An alditol that is the reduction product of two aldoses takes the name
+    first in alphabetical order (D-glucitol, not L-gulitol; D-arabinitol, not
+    D-lyxitol); a meso alditol is named without D/L (galactitol, ribitol).
+    The three-carbon alditol is glycerol.
+    """
+    if not is_alditol(chain):
+        raise NameNotRecognisedError(chain.pattern, "not a parent alditol")
+    if chain.carbons == 3:
+        return "glycerol", "glycerol"
+    from workbench.chem.smiles import is_achiral, to_smiles
+
+    meso = is_achiral(to_smiles(chain))
+    root, series, systematic = min(_alditol_candidates(chain), key=lambda c: (c[0], c[1]))
+    stem = systematic.rsplit("-", 1)[-1].replace("ose", "itol")
+    prefix = systematic.rsplit("-", 1)[0]
+    if meso:
+        prefix = prefix[2:]  # drop "D-": the name of a meso compound carries no series
+        return f"{root}itol", f"{prefix}-{stem}"
+    return f"{series}-{root}itol", f"{prefix}-{stem}"
+
+
+def _alditol_from_name(text: str) -> Chain | None:
+    """The alditol a name such as ``D-glucitol``, ``sorbitol`` or ``galactitol`` stands for."""
+    key = _ALDITOL_SYNONYMS.get(text.lower(), text)
+    if key.lower() == "glycerol":
+        return Chain(("CH2OH", "CHOH", "CH2OH"), (None, RIGHT, None))
+    systematic = _SYSTEMATIC_ALDITOL.match(key)
+    if systematic:
+        series, prefix, stem = systematic["series"], systematic["prefix"], systematic["stem"]
+        aldose = from_systematic(f"{series or 'D'}-{prefix}-{stem}ose").replace(1, "CH2OH")
+        from workbench.chem.smiles import is_achiral, to_smiles
+
+        if series is None and not is_achiral(to_smiles(aldose)):
+            raise NameNotRecognisedError(text, "this alditol is chiral: give its D- or L-")
+        return aldose
+    m = _ALDITOL_NAME.match(key)
+    if not m:
+        return None
+    parents = [t for t in TRIVIAL if "{s}" not in t and " " not in t and t.endswith("ose") and t[:-3] == m["root"]]
+    if not parents or trivial_name(from_name(f"D-{parents[0]}")) is None:
+        return None
+    d_form = from_name(f"D-{parents[0]}").replace(1, "CH2OH")
+    if m["series"] is None:
+        from workbench.chem.smiles import is_achiral, to_smiles
+
+        if not is_achiral(to_smiles(d_form)):
+            raise NameNotRecognisedError(
+                text, "this alditol is chiral: give its D- or L-", (f"D-{m['root']}itol", f"L-{m['root']}itol")
+            )
+        return d_form
+    return d_form if m["series"] == "D" else d_form.mirror()
+
+
+# ------------------------------------------------------------------ modified trivial names
+_MODIFIED_TRIVIAL = re.compile(
+    r"^(?P<mods>(?:[0-9,]+-(?:di|tri|tetra)?(?:acetamido|amino|deoxy|O-methyl)-)+)(?P<parent>[DL]-[a-z]+)$"
+)
+
+
+def _modified_trivial(text: str) -> Chain | None:
+    """``6-deoxy-L-mannose``, ``2-amino-2-deoxy-D-glucose``: substituent prefixes on a parent's trivial name.
+
+    The parent is an unmodified aldose or ketose named by its trivial name;
+    each prefix changes only the carbon it names (IUPAC-IUBMB 2-Carb-10,
+    -11, -13), so the other centres keep the parent's configuration.
+    """
+    m = _MODIFIED_TRIVIAL.match(text)
+    if not m:
+        return None
+    lookup = _trivial_lookup()
+    parent_key = m["parent"].lower()
+    if parent_key not in lookup:
+        close = difflib.get_close_matches(parent_key, [k for k in lookup if _is_parent_key(k)], n=3, cutoff=0.6)
+        raise NameNotRecognisedError(
+            text,
+            f"{m['parent']!r} is not the trivial name of a parent sugar",
+            tuple(m["mods"] + _pretty(c) for c in close),
+        )
+    parent = from_systematic(lookup[parent_key])
+    if parent.deoxy_positions or parent.amino_positions or parent.is_uronic:
+        raise NameNotRecognisedError(text, f"{m['parent']} is itself a modified sugar; use the systematic name")
+    mods = _read_modifiers(m["mods"])
+    chain = parent
+    n = chain.carbons
+    for k in sorted(mods["deoxy"] - mods["amino"] - mods["acetamido"]):
+        if not 1 <= k <= n or chain.groups[k - 1] not in ("CHOH", "CH2OH"):
+            raise NameNotRecognisedError(text, f"C-{k} of {m['parent']} carries no hydroxyl to remove")
+        chain = chain.replace(k, "CH3" if k in (1, n) else "CH2")
+    for word, code in (("amino", "CHNH2"), ("acetamido", "CHNHAc")):
+        for k in sorted(mods[word]):
+            if k not in mods["deoxy"] or not 1 <= k <= n or chain.groups[k - 1] != "CHOH":
+                raise NameNotRecognisedError(text, f"{word} sugars are named '{k}-{word}-{k}-deoxy' at a CH(OH)")
+            chain = chain.replace(k, code, chain.sides[k - 1])
+    for k in sorted(mods["O-methyl"]):
+        if not 1 <= k <= n or chain.groups[k - 1] != "CHOH":
+            raise NameNotRecognisedError(text, f"O-methyl at C-{k} needs a secondary hydroxyl")
+        chain = chain.replace(k, "CHOMe", chain.sides[k - 1])
+    return chain
+
+
+def _is_parent_key(key: str) -> bool:
+    return key[:2] in ("d-", "l-") and " " not in key and "deoxy" not in key and "amin" not in key
+
+
+def _constitution_words(text: str) -> tuple[tuple[str, ...], str]:
+    """The substituent prefixes and the class ending of a name: what a suggestion must keep."""
+    mods = tuple(sorted(re.findall(r"[0-9,]+-(?:di|tri|tetra)?(?:acetamido|amino|deoxy|O-methyl)", text)))
+    ending = next((e for e in ("itol", "uronic acid", "ulose", "osamine") if e in text), "")
+    return mods, ending
+
+
+def _keep_constitution(text: str, suggestions: list[str]) -> tuple[str, ...]:
+    """Only the suggestions that name the same substituents and class as ``text``."""
+    want = _constitution_words(text.lower())
+    return tuple(s for s in suggestions if _constitution_words(s.lower()) == want)
+
+
+def _series_name(text: str, key: str) -> Chain | None:
+    """Names of one enantiomer (abequose, colitose) with or without their series."""
+    for name, systematic in _ONE_SERIES.items():
+        chain = from_systematic(systematic)
+        if key == name:
+            return chain
+        for series in ("d", "l"):
+            if key != f"{series}-{name}":
+                continue
+            if series.upper() == chain.series:
+                return chain
+            mirror = chain.mirror()
+            other = trivial_name(mirror) or systematic_name(mirror)
+            raise NameNotRecognisedError(
+                text,
+                f"{name} is by definition {systematic}; its mirror image has its own name",
+                (other,),
+            )
+    return None
+
+
+def _strip_rotation_sign(text: str) -> str:
+    """``D-(+)-glucose`` -> ``D-glucose``: the sign of rotation is not part of the structure (not checked)."""
+    return re.sub(r"^([DL])-?\([+-]\)-", r"\1-", text)
 
 
 def from_name(text: str) -> Chain:
     """The chain a trivial or systematic name stands for.
 
     Raises :class:`NameNotRecognisedError` with close suggestions otherwise.
-    A trivial name needs its D- or L- (``glucose`` alone is ambiguous).
+    A trivial name needs its D- or L- (``glucose`` alone is ambiguous),
+    except the names of :data:`_ONE_SERIES` and :data:`_NATURAL_SERIES`.
+    Alditol names (``D-glucitol``, ``sorbitol``) give the alditol chain, and
+    ``6-deoxy-L-mannose``-style names the modified parent. Suggestions never
+    change the substituents or the class of compound named.
     """
-    t = _normalise(text)
+    t = _strip_rotation_sign(_normalise(text))
     lookup = _trivial_lookup()
     key = t.lower()
     if key in lookup:
         return from_systematic(lookup[key])
-    bare = {k.replace("{s}-", ""): k for k in TRIVIAL}
+    if key in _NATURAL_SERIES:
+        trivial, series = _NATURAL_SERIES[key]
+        return from_systematic(lookup[_with_series(trivial, series).lower()])
+    one = _series_name(text, key)
+    if one is not None:
+        return one
+    bare = {k.replace("{s}-", "").lower(): k for k in TRIVIAL}
     if key in bare:
         raise NameNotRecognisedError(
             text, "a trivial name needs its series", (_with_series(bare[key], "D"), _with_series(bare[key], "L"))
         )
     ring = ring_name(t)
     if ring is not None:
+        if ring[3]:
+            raise NameNotRecognisedError(
+                text, f"a methyl glycoside is not the free sugar {display_name(ring[0])}", (display_name(ring[0]),)
+            )
         return ring[0]
+    anomer = re.match(r"^(?:alpha|beta)-(?P<rest>[DL]-.+)$", t)
+    if anomer and not anomer["rest"].endswith("itol"):
+        return from_name(anomer["rest"])  # alpha-D-glucose: the anomer of a free sugar, ring unstated
+    modified = _modified_trivial(t)
+    if modified is not None:
+        return modified
+    alditol = _alditol_from_name(t)
+    if alditol is not None:
+        return alditol
     try:
         return from_systematic(t)
     except NameNotRecognisedError as err:
         if _SYSTEMATIC.match(t):
             raise
-        close = [_pretty(c) for c in difflib.get_close_matches(key, list(lookup), n=3, cutoff=0.6)]
-        raise NameNotRecognisedError(text, "neither a known trivial name nor a systematic name", tuple(close)) from err
+        close = difflib.get_close_matches(key, list(lookup), n=6, cutoff=0.6)
+        if close:  # a misspelt trivial name: offer only names of the best match's constitution
+            groups = from_systematic(lookup[close[0]]).groups
+            close = [c for c in close if from_systematic(lookup[c]).groups == groups]
+        suggestions = _keep_constitution(t, [_pretty(c) for c in close])[:3]
+        raise NameNotRecognisedError(text, "neither a known trivial name nor a systematic name", suggestions) from err

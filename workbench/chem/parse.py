@@ -9,16 +9,17 @@ checked by equality of canonical SMILES.
 from __future__ import annotations
 
 import itertools
+from dataclasses import dataclass
 
 from rdkit import Chem
 from rdkit.Chem import rdCIPLabeler
 
-from workbench.chem.chain import LEFT, RIGHT, Chain
-from workbench.chem.names import from_name
-from workbench.chem.smiles import canonical, quiet_rdkit, to_smiles
+from workbench.chem.chain import LEFT, RIGHT, STEREO_GROUPS, Chain
+from workbench.chem.names import display_name, from_name, ring_name
+from workbench.chem.smiles import RingForm, canonical, quiet_rdkit, ring_forms, to_smiles
 from workbench.errors import NameNotRecognisedError, StructureError
 
-__all__ = ["from_smiles", "resolve", "open_ring"]
+__all__ = ["Compound", "from_smiles", "read_compound", "resolve", "open_ring"]
 
 
 def _is_methyl(atom: Chem.Atom) -> bool:
@@ -62,9 +63,24 @@ def open_ring(mol: Chem.Mol) -> Chem.Mol:
     return mol
 
 
+_ACETAMIDO = Chem.MolFromSmarts("[CX4;H1]-[NX3;H1]-[CX3](=O)-[CH3]")
+
+
+def _acetyl_carbons(mol: Chem.Mol) -> set[int]:
+    """Carbons of N-acetyl groups (the C=O and its CH3), which are not chain carbons."""
+    return {idx for match in mol.GetSubstructMatches(_ACETAMIDO) for idx in (match[2], match[4])}
+
+
+def _acetamido_nitrogens(mol: Chem.Mol) -> set[int]:
+    return {match[1] for match in mol.GetSubstructMatches(_ACETAMIDO)}
+
+
 def _chain_atoms(mol: Chem.Mol) -> list[int]:
     """Carbon atoms of the sugar chain in order C-1 ... C-n."""
-    carbons = [a for a in mol.GetAtoms() if a.GetSymbol() == "C" and not _is_methyl_ether(a)]
+    acetyl = _acetyl_carbons(mol)
+    carbons = [
+        a for a in mol.GetAtoms() if a.GetSymbol() == "C" and not _is_methyl_ether(a) and a.GetIdx() not in acetyl
+    ]
     ids = {a.GetIdx() for a in carbons}
     if mol.GetRingInfo().NumRings():
         raise StructureError("a ring remains after opening any hemiacetal; not a monosaccharide")
@@ -105,7 +121,11 @@ def _group(mol: Chem.Mol, idx: int, terminal: bool) -> str:
     if kinds == []:
         return "CH3" if terminal else "CH2"
     if kinds == [("N", 1.0)] and hs == 1 and not terminal:
-        return "CHNH2"
+        n = subs[0][2]
+        if n.GetTotalNumHs() == 2:
+            return "CHNH2"
+        if n.GetTotalNumHs() == 1 and n.GetIdx() in _acetamido_nitrogens(mol):
+            return "CHNHAc"
     if kinds == [("O", 1.0)]:
         o = subs[0][2]
         if o.GetTotalNumHs() == 1:
@@ -133,7 +153,7 @@ def from_smiles(smiles: str) -> Chain:
     if groups[-1] == "CHO" or (groups[-2] == "CO" and groups[1] != "CO") or (len(groups) == 3 and groups[-1] == "CH3"):
         order.reverse()
         groups.reverse()
-    stereo = [i for i, g in enumerate(groups) if g in ("CHOH", "CHNH2", "CHOMe")]
+    stereo = [i for i, g in enumerate(groups) if g in STEREO_GROUPS]
     found = {a for a, _ in Chem.FindMolChiralCenters(mol, includeUnassigned=True, useLegacyImplementation=False)}
     unassigned = [
         i + 1 for i in stereo if mol.GetAtomWithIdx(order[i]).GetChiralTag() == Chem.ChiralType.CHI_UNSPECIFIED
@@ -167,14 +187,70 @@ def from_smiles(smiles: str) -> Chain:
     raise StructureError("no configuration of the chain reproduces the SMILES")
 
 
-def resolve(text: str) -> Chain:
-    """A sugar from a trivial name, a systematic name or a SMILES."""
+@dataclass(frozen=True)
+class Compound:
+    """What a name or SMILES stands for: a free sugar, a methyl glycoside of it, or an alditol.
+
+    ``chain`` is the sugar (for a glycoside, its parent sugar; for an
+    alditol, the alditol itself); ``glycoside`` is the methyl glycoside's
+    ring form, None otherwise.
+    """
+
+    chain: Chain
+    glycoside: RingForm | None = None
+
+    @property
+    def kind(self) -> str:
+        """``sugar``, ``glycoside`` or ``alditol``."""
+        if self.glycoside is not None:
+            return "glycoside"
+        return "alditol" if self.chain.is_alditol else "sugar"
+
+
+def _glycoside_of(chain: Chain, smiles: str) -> RingForm | None:
+    """The methyl glycoside ring form that ``smiles`` writes, if it is one."""
+    target = canonical(smiles)
+    for ring in ("pyranose", "furanose"):
+        for anomer in ("alpha", "beta"):
+            form = RingForm(ring, anomer, methyl=True)
+            if RingForm(ring, anomer) in ring_forms(chain) and to_smiles(chain, form) == target:
+                return form
+    return None
+
+
+def read_compound(text: str) -> Compound:
+    """A free sugar, methyl glycoside or alditol from a name or a SMILES."""
+    ring = ring_name(text)
+    if ring is not None and ring[3]:
+        chain, ring_word, anomer, _ = ring
+        return Compound(chain, RingForm(ring_word, anomer or "alpha", methyl=True))
     try:
-        return from_name(text)
+        return Compound(from_name(text))
     except NameNotRecognisedError as name_error:
         if any(ch in text for ch in "=@[]()") or text.strip().isupper():
             try:
-                return from_smiles(text.strip())
+                chain = from_smiles(text.strip())
             except StructureError as err:
                 raise NameNotRecognisedError(text, str(err)) from err
+            with quiet_rdkit():
+                return Compound(chain, _glycoside_of(chain, text.strip()))
         raise name_error
+
+
+def resolve(text: str) -> Chain:
+    """A sugar (or a parent alditol) from a trivial name, a systematic name or a SMILES.
+
+    A methyl glycoside is refused: it has no free carbonyl, so it is not the
+    free sugar (non-reducing, no osazone); name the parent sugar instead, or
+    use :func:`read_compound` to predict the glycoside itself.
+    """
+    compound = read_compound(text)
+    if compound.glycoside is not None:
+        parent = display_name(compound.chain)
+        raise NameNotRecognisedError(
+            text,
+            f"a methyl glycoside is not the free sugar {parent} (no free carbonyl: non-reducing, no osazone, "
+            f"no alditol); only `predict` handles glycosides; to mean the sugar, name it",
+            (parent,),
+        )
+    return compound.chain

@@ -226,6 +226,8 @@ def lactones(chain: Chain) -> tuple[Lactone, ...] | NotApplicable:
 
 def aldaric_acid(chain: Chain) -> Chain | NotApplicable:
     """Nitric-acid product: both chain ends to carboxylic acids."""
+    if chain.is_alditol:
+        return NotApplicable("an alditol: nitric acid on alditols is not predicted here")
     if chain.carbonyl != "aldose":
         return NotApplicable("nitric acid cleaves a ketose's chain next to the carbonyl; no aldaric acid forms")
     last = chain.groups[-1]
@@ -240,7 +242,13 @@ def aldaric_acid(chain: Chain) -> Chain | NotApplicable:
 
 
 def alditols(chain: Chain) -> tuple[Chain, ...] | NotApplicable:
-    """Borohydride products: the alditol of an aldose, the two C-2 epimers of a ketose."""
+    """Borohydride products: the alditol of an aldose, the two C-2 epimers of a ketose.
+
+    An alditol is left unchanged, so it stands for itself (a relation member
+    named ``D-glucitol`` compares with the alditols of the unknowns).
+    """
+    if chain.is_alditol:
+        return (chain,)
     if chain.carbonyl == "aldose":
         return (chain.replace(1, "CH2OH"),)
     if chain.carbonyl == "ketose":

@@ -9,7 +9,12 @@ carbon; the anomeric centre's tag is derived from its Fischer arrangement.
 
 alpha/beta follow the IUPAC anomeric reference atom rule (2-Carb-6.2): alpha
 when the exocyclic anomeric oxygen is formally cis, in the Fischer projection,
-to the oxygen on the configurational (reference) atom.
+to the oxygen on the anomeric reference atom. With one configurational prefix
+(up to four centres) that atom is the configurational atom, the
+highest-numbered centre; with several prefixes it is the highest-numbered
+centre of the group next to the anomeric centre, i.e. of the first four
+centres counted from C-1 (2-Carb-8.3): C-5 of L-glycero-D-manno-heptose, as in
+"methyl L-glycero-alpha-D-manno-heptopyranoside".
 """
 
 from __future__ import annotations
@@ -35,6 +40,8 @@ __all__ = [
     "is_achiral",
     "ring_form",
     "ring_forms",
+    "reference_atom",
+    "reference_side",
     "to_inchi",
     "to_inchikey",
 ]
@@ -111,11 +118,28 @@ def _ring_positions(chain: Chain, ring: str) -> tuple[int, int]:
     return anomeric, closing
 
 
-def _reference_side(chain: Chain) -> str:
-    """Side of the reference atom's oxygen (highest-numbered stereocentre)."""
-    if not chain.stereocentres:
+# Centres per configurational prefix (IUPAC-IUBMB 2-Carb-8.3).
+_PREFIX_GROUP = 4
+
+
+def reference_atom(chain: Chain) -> int:
+    """The anomeric reference atom (1-based carbon number), IUPAC-IUBMB 2-Carb-6.2.
+
+    The highest-numbered stereocentre of the configurational prefix group
+    next to the anomeric centre. Prefixes cover groups of four centres counted
+    from C-1 (2-Carb-8.3), so this is the fourth centre when there are more
+    than four (C-5 of a heptose or octose, C-6 of an oct-2-ulose) and the
+    highest-numbered one otherwise (the configurational atom that gives D/L).
+    """
+    centres = chain.stereocentres
+    if not centres:
         raise StructureError(f"{chain}: no stereocentre, so alpha/beta are undefined")
-    return chain.sides[chain.stereocentres[-1] - 1] or RIGHT
+    return centres[min(_PREFIX_GROUP, len(centres)) - 1]
+
+
+def reference_side(chain: Chain) -> str:
+    """Fischer side (``right``/``left``) of the heteroatom on the anomeric reference atom."""
+    return chain.sides[reference_atom(chain) - 1] or RIGHT
 
 
 def _write(chain: Chain, form: RingForm | None) -> str:
@@ -125,7 +149,7 @@ def _write(chain: Chain, form: RingForm | None) -> str:
     exo_side = ""
     if form is not None:
         anomeric, closing = _ring_positions(chain, form.ring)
-        ref = _reference_side(chain)
+        ref = reference_side(chain)
         other = LEFT if ref == RIGHT else RIGHT
         exo_side = ref if form.anomer == "alpha" else other
     parts: list[str] = []
@@ -157,7 +181,7 @@ def _write(chain: Chain, form: RingForm | None) -> str:
             tag = _tag(written, fischer)
             parts.append(f"[C{tag}{h}]{_RING_DIGIT}({exo})")
             continue
-        if group.stereo and code in ("CHOH", "CHNH2", "CHOMe"):
+        if group.stereo:
             side = chain.sides[i]
             tag = "@" if side == RIGHT else "@@"
             if k == closing:
@@ -236,7 +260,7 @@ def ring_forms(chain: Chain) -> tuple[RingForm, ...]:
     for form in RING_FORMS:
         try:
             _ring_positions(chain, form.ring)
-            _reference_side(chain)
+            reference_side(chain)
         except StructureError:
             continue
         out.append(form)

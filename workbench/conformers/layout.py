@@ -19,7 +19,7 @@ from dataclasses import dataclass
 from functools import cache
 
 from workbench.chem.chain import GROUPS, RIGHT, Chain
-from workbench.chem.smiles import RingForm, ring_forms
+from workbench.chem.smiles import RingForm, reference_side, ring_forms
 from workbench.conformers.chair import DOWN, UP
 from workbench.errors import StructureError
 
@@ -123,6 +123,8 @@ def _hetero_substituent(chain: Chain, carbon: int) -> Substituent:
         return Substituent("O", ("H",), f"O{carbon}")
     if code == "CHNH2":
         return Substituent("N", ("H", "H"), f"N{carbon}")
+    if code == "CHNHAc":
+        return Substituent("N", ("H", "C"), f"N{carbon}")
     if code == "CHOMe":
         return Substituent("O", ("C",), f"O{carbon}")
     raise StructureError(f"C-{carbon}: group {code} is not a ring carbon stereosieve lays out")
@@ -140,7 +142,7 @@ def ring_layout(chain: Chain, form: RingForm) -> RingLayout:
     size = 6 if form.ring == "pyranose" else 5
     anomeric = 1 if chain.carbonyl == "aldose" else 2
     closing = anomeric + size - 2
-    reference_right = chain.series == "D"
+    reference_right = reference_side(chain) == RIGHT  # 2-Carb-6.2: not always the D/L atom
     exo_right = reference_right if form.anomer == "alpha" else not reference_right
     exo_face = DOWN if exo_right else UP
     positions: list[RingPosition] = []

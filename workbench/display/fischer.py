@@ -39,7 +39,7 @@ _TERMINAL_TEXT = {
 # Internal carbons that are not stereocentres: (backbone text, double-bonded partner on the right).
 _INTERNAL_TEXT = {"CO": ("C", "O"), "CH2": ("CH2", ""), "CNNPh": ("C", "NNHPh")}
 # The heteroatom group of each kind of stereocentre.
-_SUBSTITUENT = {"CHOH": "OH", "CHNH2": "NH2", "CHOMe": "OCH3"}
+_SUBSTITUENT = {"CHOH": "OH", "CHNH2": "NH2", "CHNHAc": "NHAc", "CHOMe": "OCH3"}
 
 
 @dataclass(frozen=True)
