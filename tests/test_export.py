@@ -121,3 +121,16 @@ def test_export_command_refuses_bad_outputs_and_contradictions(tmp_path, capsys)
     assert main(["export", str(project), "--format", "pdb"]) == 2
     assert main(["export", str(SAMPLES / "contradictory_hexose_records.json"), "--format", "csv"]) == 3
     assert "contradictory" in capsys.readouterr().err
+
+
+def test_csv_cells_that_look_like_formulas_stay_text():
+    project = project_from_dict(
+        {
+            "format": "stereosieve-project",
+            "version": 1,
+            "unknowns": [{"id": "=1+1", "scope": {"carbons": [3], "carbonyl": ["aldose"], "series": ["D"]}}],
+        }
+    )
+    (row,) = csv.DictReader(io.StringIO(csv_text(survivor_rows(solve(project)))))
+    # the one D-aldotriose is D-glyceraldehyde (common practice); the id is kept as text, not a formula
+    assert row["unknown"] == "'=1+1" and row["name"] == "D-glyceraldehyde"

@@ -69,14 +69,17 @@ def test_orphaned_temporary_files_are_removed_and_fresh_ones_kept(tmp_path):
     stale = tmp_path / f".report.html{TEMP_MARK}abc123.tmp"
     fresh = tmp_path / f".report.html{TEMP_MARK}def456.tmp"  # another write in progress right now
     other = tmp_path / f".other.html{TEMP_MARK}abc123.tmp"  # belongs to another file
-    for leftover in (stale, fresh, other):
+    older_style = tmp_path / ".report.html.k3j_9xq2.tmp"  # left by a version without the mark
+    users = tmp_path / ".report.html.my notes.tmp"  # not ours: never touched
+    for leftover in (stale, fresh, other, older_style, users):
         leftover.write_text("half a file")
     old = time.time() - ORPHAN_AGE_S - 60
-    os.utime(stale, (old, old))
-    os.utime(other, (old, old))
+    for leftover in (stale, other, older_style, users):
+        os.utime(leftover, (old, old))
     write_text_atomic(target, "done")
     assert target.read_text() == "done"
-    assert not stale.exists() and fresh.exists() and other.exists()
+    assert not stale.exists() and not older_style.exists()
+    assert fresh.exists() and other.exists() and users.exists()
 
 
 def test_a_failed_write_leaves_no_temporary_file(tmp_path, monkeypatch):

@@ -287,7 +287,14 @@ def test_methods_on_the_result_objects_give_the_same_frames(two_left):
 def test_every_column_is_documented_in_the_contributor_guide():
     guide = (ROOT / "DEVELOPERS.md").read_text(encoding="utf-8")
     section = guide[guide.index("### Tables") :]
-    for columns in (SURVIVOR_COLUMNS, TRAIL_COLUMNS, CONFLICT_COLUMNS, OBSERVATION_COLUMNS, PLAN_COLUMNS, CURVE_COLUMNS):
+    for columns in (
+        SURVIVOR_COLUMNS,
+        TRAIL_COLUMNS,
+        CONFLICT_COLUMNS,
+        OBSERVATION_COLUMNS,
+        PLAN_COLUMNS,
+        CURVE_COLUMNS,
+    ):
         for column in columns:
             assert f"`{column}`" in section, column
 

@@ -103,13 +103,25 @@ def sdf_text(rows: tuple[ExportRow, ...]) -> str:
     return buffer.getvalue()
 
 
+_FORMULA_START = ("=", "+", "-", "@", "\t", "\r")
+
+
+def _cell(text: str) -> str:
+    """A CSV cell a spreadsheet shows as text: one starting like a formula gets a leading apostrophe.
+
+    Only user-given text (an unknown's id) can start so; names, SMILES and
+    InChIKeys never do. (OWASP's advice on CSV injection; common practice.)
+    """
+    return f"'{text}" if text.startswith(_FORMULA_START) else text
+
+
 def csv_text(rows: tuple[ExportRow, ...]) -> str:
     """CSV with the header :data:`CSV_COLUMNS`, one line per survivor."""
     buffer = io.StringIO()
     writer = csv.writer(buffer, lineterminator="\n")
     writer.writerow(CSV_COLUMNS)
     for row in rows:
-        writer.writerow([row.value(key) for key in CSV_COLUMNS])
+        writer.writerow([_cell(row.value(key)) for key in CSV_COLUMNS])
     return buffer.getvalue()
 
 

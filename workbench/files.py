@@ -12,8 +12,10 @@ hold a file (a folder, a device, the input project itself).
 
 from __future__ import annotations
 
+import glob
 import logging
 import os
+import re
 import stat
 import tempfile
 import time
@@ -92,10 +94,20 @@ def check_output(
     return target
 
 
+def _is_temporary(leftover: Path, name: str) -> bool:
+    """True for our temporary files of ``name``: ``.NAME.stereosieve-*.tmp``, or ``.NAME.XXXXXXXX.tmp`` of old versions."""
+    middle = leftover.name[len(name) + 2 : -len(".tmp")]
+    if leftover.name.startswith(f".{name}{TEMP_MARK}"):
+        return True
+    return re.fullmatch(r"[a-z0-9_]{8}", middle) is not None  # tempfile's random part, as older versions named them
+
+
 def _remove_orphans(folder: Path, name: str) -> None:
     """Delete temporary files of ``name`` in ``folder`` older than :data:`ORPHAN_AGE_S` (a killed write)."""
     cutoff = time.time() - ORPHAN_AGE_S
-    for leftover in folder.glob(f".{name}{TEMP_MARK}*.tmp"):
+    for leftover in folder.glob(f".{glob.escape(name)}.*.tmp"):
+        if not _is_temporary(leftover, name):
+            continue
         try:
             if leftover.is_file() and not leftover.is_symlink() and leftover.stat().st_mtime < cutoff:
                 leftover.unlink()
