@@ -13,6 +13,8 @@ Modification words:
 - ``omethyl:N``: OMe in place of OH at C-N.
 - ``uronic``: the last carbon of an aldose is COOH.
 - words joined with ``+`` combine, e.g. ``amino:2+deoxy:6``.
+- ``sugars`` (a scope key, not a word): a list of sugar names; the
+  candidates are then those sugars, filtered by carbons, carbonyl and series.
 - ``any``: none; every single deoxy position; every deoxy pair that includes
   the terminal carbon (2,6- and 3,6-dideoxyhexoses and their kin); amino:2 and
   amino:2 with terminal deoxy (aldoses); uronic (aldoses of 4+ carbons).
@@ -156,6 +158,7 @@ class Scope:
     carbonyl: tuple[str, ...] = ("aldose", "ketose")
     series: tuple[str, ...] = ("D", "L")
     modifications: tuple[str, ...] = ("none",)
+    sugars: tuple[str, ...] = ()  # names; when given, the candidates are these sugars (other keys filter)
     _parsed: tuple[Modification | None, ...] = field(default=(), init=False, repr=False, compare=False)
 
     def __post_init__(self) -> None:
@@ -174,15 +177,22 @@ class Scope:
             raise ScopeError("scope 'carbonyl', 'series' and 'modifications' may not be empty lists")
         parsed = tuple(None if w == "any" else parse_modification(w) for w in self.modifications)
         object.__setattr__(self, "_parsed", parsed)
+        for name in self.sugars:
+            if not isinstance(name, str) or not name.strip():
+                raise ScopeError(f"scope 'sugars': {name!r} is not a sugar name")
+        if self.sugars:
+            _named(self.sugars)  # every name must resolve
 
     @classmethod
     def from_dict(cls, data: dict) -> Scope:
         """The scope of a project file's ``scope`` object (missing keys take defaults)."""
-        unknown = set(data) - {"carbons", "carbonyl", "series", "modifications"}
+        unknown = set(data) - {"carbons", "carbonyl", "series", "modifications", "sugars"}
         if unknown:
-            raise ScopeError(f"unknown scope key(s) {sorted(unknown)}; use carbons, carbonyl, series, modifications")
+            raise ScopeError(
+                f"unknown scope key(s) {sorted(unknown)}; use carbons, carbonyl, series, modifications, sugars"
+            )
         kwargs = {}
-        for key in ("carbons", "carbonyl", "series", "modifications"):
+        for key in ("carbons", "carbonyl", "series", "modifications", "sugars"):
             if key in data:
                 value = data[key]
                 if not isinstance(value, list):
@@ -192,12 +202,15 @@ class Scope:
 
     def to_dict(self) -> dict:
         """The project-file form of this scope."""
-        return {
+        out: dict = {
             "carbons": list(self.carbons),
             "carbonyl": list(self.carbonyl),
             "series": list(self.series),
             "modifications": list(self.modifications),
         }
+        if self.sugars:
+            out["sugars"] = list(self.sugars)
+        return out
 
     def variants(self, carbons: int, carbonyl: str) -> list[Modification]:
         """Distinct modifications of this scope that apply to one chain type."""
@@ -211,6 +224,21 @@ class Scope:
 
 
 DEFAULT_SCOPE = Scope()
+
+
+@lru_cache(maxsize=256)
+def _named(names: tuple[str, ...]) -> tuple[Chain, ...]:
+    """The chains of the sugar names of a scope's ``sugars`` key (ScopeError for an unknown name)."""
+    from workbench.chem.parse import resolve  # parse imports names, which need no catalogue
+    from workbench.errors import NameNotRecognisedError
+
+    out = []
+    for name in names:
+        try:
+            out.append(resolve(name))
+        except NameNotRecognisedError as err:
+            raise ScopeError(f"scope 'sugars': {err}") from err
+    return tuple(out)
 
 
 def _chains(template: tuple[str, ...]) -> Iterator[Chain]:
@@ -230,6 +258,13 @@ def enumerate_scope(scope: Scope = DEFAULT_SCOPE) -> Iterator[Chain]:
     """
     seen: set[Chain] = set()
     both = set(scope.series) == {"D", "L"}
+    if scope.sugars:
+        for chain in _named(scope.sugars):
+            fits_scope = chain.carbons in scope.carbons and chain.carbonyl in scope.carbonyl
+            if fits_scope and (chain.series in scope.series or (chain.series is None and both)) and chain not in seen:
+                seen.add(chain)
+                yield chain
+        return
     for n in sorted(set(scope.carbons)):
         for carbonyl in ("aldose", "ketose"):
             if carbonyl not in scope.carbonyl:
