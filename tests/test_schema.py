@@ -6,6 +6,7 @@ kind added later is covered without editing this file; the loader is the judge o
 
 from __future__ import annotations
 
+import ast
 import json
 from pathlib import Path
 
@@ -14,8 +15,8 @@ import pytest
 
 from workbench.cli import main
 from workbench.data import DEMO_PROJECT, data_path
-from workbench.errors import ObservationError
-from workbench.evidence import dumps_project, load_project
+from workbench.errors import ObservationError, WorkbenchError
+from workbench.evidence import dumps_project, load_project, project_from_dict
 from workbench.evidence.observations import OBSERVATION_TYPES, observation_from_dict
 from workbench.evidence.schema import DIALECT, project_schema
 
@@ -51,6 +52,40 @@ def test_every_project_file_validates(validator, path):
     assert list(validator.iter_errors(data)) == []  # ... and so does the schema
     # and what stereosieve itself writes back
     assert list(validator.iter_errors(json.loads(dumps_project(load_project(path))))) == []
+
+
+def _projects_written_in_tests() -> list[tuple[str, dict]]:
+    """Project files spelt out in the test modules: literal dicts with the format key, and literal
+    ``project(unknowns, observations)`` calls (the helper of tests/test_engine.py)."""
+    found = []
+    for path in sorted((ROOT / "tests").glob("test_*.py")):
+        for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"))):
+            try:
+                if isinstance(node, ast.Dict):
+                    data = ast.literal_eval(node)
+                    if isinstance(data, dict) and data.get("format") == "stereosieve-project":
+                        found.append((f"{path.name}:{node.lineno}", data))
+                elif isinstance(node, ast.Call) and getattr(node.func, "id", "") == "project" and len(node.args) == 2:
+                    unknowns, observations = (ast.literal_eval(a) for a in node.args)
+                    data = {"format": "stereosieve-project", "version": 1, "title": "test"}
+                    found.append(
+                        (f"{path.name}:{node.lineno}", {**data, "unknowns": unknowns, "observations": observations})
+                    )
+            except (ValueError, TypeError, SyntaxError):  # not a literal: built at run time
+                continue
+    return found
+
+
+def test_every_valid_project_written_in_the_tests_validates(validator):
+    checked = 0
+    for where, data in _projects_written_in_tests():
+        try:
+            project_from_dict(data, where)
+        except WorkbenchError:
+            continue  # a deliberately bad file of some test
+        assert list(validator.iter_errors(data)) == [], where
+        checked += 1
+    assert checked >= 5  # tests/test_engine.py alone spells out more than five
 
 
 def _valid_value(spec):
