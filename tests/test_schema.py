@@ -18,7 +18,7 @@ from workbench.data import DEMO_PROJECT, data_path
 from workbench.errors import ObservationError, WorkbenchError
 from workbench.evidence import dumps_project, load_project, project_from_dict
 from workbench.evidence.observations import OBSERVATION_TYPES, observation_from_dict
-from workbench.evidence.schema import DIALECT, project_schema
+from workbench.evidence.schema import DIALECT, KNOWN_TYPES, project_schema
 
 ROOT = Path(__file__).resolve().parent.parent
 PROJECT_FILES = sorted((ROOT / "sample_projects").glob("*.json")) + sorted((ROOT / "tests" / "data").glob("*.json"))
@@ -102,13 +102,33 @@ def _valid_value(spec):
         low = spec.minimum if spec.minimum is not None else 0
         value = low if spec.maximum is None else (low + spec.maximum) / 2
         return int(value) if spec.type == "int" else float(value)
-    return {"pair": "H1-H2"}.get(spec.name, "C6H12O6")
+    if spec.type == "positions":  # a 2,3,4,6-tri-O-methyl... pattern of a terminal hexopyranosyl residue
+        return {"acetyl": [1, 5], "methyl": [2, 3, 4, 6]}.get(spec.name, [1, 2, 3][: max(spec.min_items, 1)])
+    if spec.type == "numbers":
+        return [1.0, 2.0]
+    return {"pair": "H1-H2", "product": "glycerol"}.get(spec.name, "C6H12O6")
+
+
+def _examples() -> dict[str, dict]:
+    """One observation of each kind found in the project files (the first), as a fallback base."""
+    out: dict[str, dict] = {}
+    for path in PROJECT_FILES:
+        for obs in json.loads(path.read_text(encoding="utf-8")).get("observations", []):
+            out.setdefault(obs.get("kind"), obs)
+    return out
 
 
 def _valid_observation(kind):
+    """An observation of ``kind`` the loader accepts: generated from the specs, else one from a project file."""
     data = {"id": "E1", "kind": kind, "note": "n", "by": "A. Chemist", "recorded": "2025-03-04T10:15+01:00"}
     for spec in OBSERVATION_TYPES[kind].SPECS:
         data[spec.name] = _valid_value(spec)
+    try:
+        observation_from_dict(data)
+    except ObservationError:  # a kind whose fields depend on each other: take a real one
+        if kind not in _examples():
+            pytest.skip(f"no valid {kind} observation can be generated or found in a project file")
+        data = {**_examples()[kind], "id": "E1"}
     return data
 
 
@@ -120,7 +140,9 @@ def _broken(kind):
     for spec in OBSERVATION_TYPES[kind].SPECS:
         if spec.required:
             out[f"{spec.name} missing"] = {k: v for k, v in base.items() if k != spec.name}
-        wrong = {"bool": "yes", "int": "six", "float": "six", "members": "U1"}.get(spec.type, 12)
+        if spec.type not in KNOWN_TYPES:
+            continue  # the schema accepts any value of a type it does not describe yet
+        wrong = {"bool": "yes", "int": "six", "float": "six", "members": "U1", "positions": "2,3"}.get(spec.type, 12)
         out[f"{spec.name} wrong type"] = {**base, spec.name: wrong}
         if spec.type == "choice":
             out[f"{spec.name} not a choice"] = {**base, spec.name: "something else"}
@@ -132,6 +154,9 @@ def _broken(kind):
             out[f"{spec.name} too few"] = {**base, spec.name: ["U1"]}
         if spec.type == "members":
             out[f"{spec.name} repeated"] = {**base, spec.name: ["U1", "U1"]}
+        if spec.type == "positions":
+            out[f"{spec.name} repeated"] = {**base, spec.name: [2, 2]}
+            out[f"{spec.name} carbon 0"] = {**base, spec.name: [0]}
     return out
 
 

@@ -19,7 +19,10 @@ from workbench.chem.catalogue import CARBON_RANGE, DEFAULT_SCOPE, Scope
 from workbench.evidence.observations import _COMMON, OBSERVATION_TYPES, FieldSpec
 from workbench.evidence.project import _TOP_KEYS, FORMAT, VERSION, Unknown
 
-__all__ = ["SCHEMA_ID", "DIALECT", "project_schema", "field_schema"]
+__all__ = ["SCHEMA_ID", "DIALECT", "KNOWN_TYPES", "project_schema", "field_schema"]
+
+KNOWN_TYPES = ("unknown", "member", "members", "text", "choice", "bool", "int", "float", "positions", "numbers")
+"""The FieldSpec types described exactly; any other type is accepted as any value until described here."""
 
 DIALECT = "https://json-schema.org/draft/2020-12/schema"
 SCHEMA_ID = "urn:stereosieve:project-file"
@@ -63,6 +66,21 @@ def field_schema(spec: FieldSpec) -> dict[str, Any]:
             out["minItems"] = spec.min_items
         if spec.max_items:
             out["maxItems"] = spec.max_items
+    elif spec.type == "positions":
+        top = int(spec.maximum) if spec.maximum is not None else 9
+        out = {
+            "type": "array",
+            "items": {"type": "integer", "minimum": 1, "maximum": top},
+            "uniqueItems": True,
+            "description": f"{spec.doc}: carbon numbers",
+        }
+        if spec.min_items:
+            out["minItems"] = spec.min_items
+    elif spec.type == "numbers":
+        number: dict[str, Any] = {"type": "number"}
+        if spec.minimum is not None:
+            number["minimum"] = spec.minimum
+        out = {"type": "array", "items": number, "minItems": 1, "description": spec.doc + unit}
     else:  # a FieldSpec type this generator does not know yet: accept any value rather than reject valid files
         out = {"description": f"{spec.doc} ({spec.type})"}
     if not spec.required:
@@ -89,8 +107,12 @@ def _observation_schema(kind: str) -> dict[str, Any]:
     }
 
 
-def _value_schema(default: Any) -> dict[str, Any]:
-    """A schema from a dataclass default's type (for scope and unknown fields added later)."""
+def _value_schema(default: Any, annotation: object = "") -> dict[str, Any]:
+    """A schema from a dataclass field's default and annotation (for scope and unknown fields added later)."""
+    text = str(annotation).replace(" ", "")
+    for python, json_type in (("str", "string"), ("int", "integer"), ("float", "number")):
+        if text.startswith(f"tuple[{python},"):
+            return {"type": "array", "items": {"type": json_type}}
     if isinstance(default, bool):
         return {"type": "boolean"}
     if isinstance(default, int):
@@ -125,7 +147,7 @@ def _scope_schema() -> dict[str, Any]:
     for f in dataclasses.fields(Scope):
         if f.name.startswith("_") or not f.init:
             continue
-        properties[f.name] = known.get(f.name) or _value_schema(getattr(DEFAULT_SCOPE, f.name))
+        properties[f.name] = known.get(f.name) or _value_schema(getattr(DEFAULT_SCOPE, f.name), f.type)
     return {
         "type": "object",
         "properties": properties,
@@ -147,7 +169,7 @@ def _unknown_schema() -> dict[str, Any]:
             properties["scope"] = {"$ref": "#/$defs/scope"}
         else:
             default = f.default if f.default is not dataclasses.MISSING else None
-            properties[f.name] = _value_schema(default)
+            properties[f.name] = _value_schema(default, f.type)
     return {"type": "object", "properties": properties, "required": ["id"], "additionalProperties": False}
 
 
