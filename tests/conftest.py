@@ -2,7 +2,13 @@
 
 from __future__ import annotations
 
+import os
+import tempfile
+
 import pytest
+
+# Outcome tables computed by the tests go to a throw-away cache, not the user's cache folder.
+os.environ.setdefault("STEREOSIEVE_CACHE_DIR", tempfile.mkdtemp(prefix="stereosieve-cache-"))
 
 from workbench.chem import Scope, resolve
 

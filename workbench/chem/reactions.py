@@ -335,6 +335,6 @@ def relation_of_sets(a: frozenset[str], b: frozenset[str]) -> str:
     """
     if a & b:
         return "identical"
-    if {mirror_smiles(x) for x in a} & b:
+    if a & {mirror_smiles(x) for x in b}:  # mirror the (usually fixed, cached) reference side
         return "enantiomeric"
     return "different"

@@ -22,6 +22,7 @@ from workbench.chem.catalogue import catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.predictions import predict as record_of
+from workbench.evidence import tables
 from workbench.evidence.network import Binary, components, enumerate_solutions, find_solution, supported_domains
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import fits, product_key
@@ -213,6 +214,12 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
     return out, fixed
 
 
+def _kept(obs: Observation, chains: list[Chain]) -> list[Chain]:
+    """The candidates a unary observation keeps (through the outcome table where one applies)."""
+    kept = tables.keep(obs, chains, fits)
+    return kept if kept is not None else [c for c in chains if fits(obs, c).fits]
+
+
 def _scope_domains(project: Project) -> dict[str, list[Chain]]:
     return {u.id: list(catalogue(u.scope)) for u in project.unknowns}
 
@@ -222,7 +229,7 @@ def unary_domains(project: Project, observations: Iterable[Observation]) -> dict
     domains = _scope_domains(project)
     for obs in observations:
         if obs.UNARY:
-            domains[obs.unknown] = [c for c in domains[obs.unknown] if fits(obs, c).fits]
+            domains[obs.unknown] = _kept(obs, domains[obs.unknown])
     return domains
 
 
@@ -359,7 +366,7 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
         new_cons: list[Binary] = []
         new_fixed: dict[str, Chain] = {}
         if obs.UNARY:
-            domains[obs.unknown] = [c for c in domains[obs.unknown] if fits(obs, c).fits]
+            domains[obs.unknown] = _kept(obs, domains[obs.unknown])
         else:
             new_cons, new_fixed = constraints_of(project, obs)
         domains.update({k: [v] for k, v in {**fixed, **new_fixed}.items()})

@@ -33,6 +33,9 @@ class _NoPrediction:
     def __repr__(self) -> str:
         return "NO_PREDICTION"
 
+    def __reduce__(self) -> str:
+        return "NO_PREDICTION"  # pickled by name: one marker per process (outcome tables)
+
 
 NO_PREDICTION: Any = _NoPrediction()
 

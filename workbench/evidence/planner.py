@@ -28,16 +28,18 @@ from dataclasses import dataclass
 from functools import cache
 from typing import TYPE_CHECKING, Any
 
+import numpy as np
+
 from workbench.chem import reactions
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.parse import resolve
-from workbench.chem.predictions import predict as record_of
+from workbench.evidence import tables
 from workbench.evidence.costs import Cost, cautions_of, cost_of
 from workbench.evidence.engine import Solution, joint_worlds, solve
-from workbench.evidence.observations import OBSERVATION_TYPES
-from workbench.evidence.outcomes import NO_PREDICTION, outcome_label, predict, product_key
+from workbench.evidence.outcomes import NO_PREDICTION, outcome_label, product_key
 from workbench.evidence.project import Project
+from workbench.evidence.tables import column_key
 
 if TYPE_CHECKING:
     import pandas as pd
@@ -171,14 +173,17 @@ def _expected_remaining(sizes: Sequence[int]) -> float:
     return sum(n * n for n in sizes) / total if total else 0.0
 
 
-def _cluster(values: dict[Chain, float], tolerance: float) -> dict[Chain, Hashable]:
-    """Group numeric outcomes: neighbours closer than ``tolerance`` share a group label."""
+def _cluster(values: dict[Hashable, float], tolerance: float) -> dict[Hashable, Hashable]:
+    """Group numeric outcomes: neighbours closer than ``tolerance`` share a group label.
+
+    Keys are anything hashable (candidates, or the codes of distinct values).
+    """
     digits = 2 if tolerance < 0.5 else 1
     order = sorted(values, key=lambda c: values[c])
-    labels: dict[Chain, Hashable] = {}
-    group: list[Chain] = []
+    labels: dict[Hashable, Hashable] = {}
+    group: list[Hashable] = []
 
-    def close(g: list[Chain]) -> None:
+    def close(g: list[Hashable]) -> None:
         lo, hi = f"{values[g[0]]:.{digits}f}", f"{values[g[-1]]:.{digits}f}"
         label = lo if lo == hi else f"{lo} to {hi}"
         for c in g:
@@ -194,47 +199,33 @@ def _cluster(values: dict[Chain, float], tolerance: float) -> dict[Chain, Hashab
     return labels
 
 
-def _probe(kind: str, **params: Any):
-    return OBSERVATION_TYPES[kind]("?", **params)
-
-
 @cache
 def _reference(name: str) -> Chain:
     return resolve(name)
 
 
-def _aldaric_word(chain: Chain | None) -> str:
-    if chain is None:
-        return "no product"
-    active = record_of(chain).aldaric_acid_active
-    if active is None:
-        return "no aldaric acid"
-    return "active" if active else "meso"
-
-
-def _unary_outcomes(kind: str, params: dict, survivors: Sequence[Chain]) -> dict[Chain, Hashable]:
-    probe = _probe(kind, **params)
-    raw = {c: predict(probe, c) for c in survivors}
-    if kind in _TOLERANCE:
-        numeric = {c: v for c, v in raw.items() if isinstance(v, (int, float)) and v is not NO_PREDICTION}
-        labels: dict[Chain, Hashable] = {}
-        if kind == "periodate":
-            for c, v in raw.items():
-                labels[c] = outcome_label(kind, v)
-            return labels
-        labels.update(_cluster(numeric, _TOLERANCE[kind]))
-        for c, v in raw.items():
-            if c not in labels:
-                labels[c] = outcome_label(kind, v)
-        return labels
-    return {c: outcome_label(kind, v) for c, v in raw.items()}
+def _unary_outcomes(kind: str, params: dict, survivors: Sequence[Chain]) -> list[Hashable]:
+    """The outcome label of every survivor, in order, read from the outcome table (one label per value)."""
+    probe_params = {k: v for k, v in params.items() if k != "unknown"}
+    got, vals = tables.codes(column_key(kind, **probe_params), survivors)
+    present = [int(c) for c in np.unique(got)]
+    label_of: dict[Hashable, Hashable] = {}
+    if kind in _TOLERANCE and kind != "periodate":
+        numeric: dict[Hashable, float] = {
+            c: vals[c] for c in present if isinstance(vals[c], (int, float)) and vals[c] is not NO_PREDICTION
+        }
+        label_of.update(_cluster(numeric, _TOLERANCE[kind]))
+    for c in present:
+        if c not in label_of:
+            label_of[c] = outcome_label(kind, vals[c])
+    return [label_of[c] for c in got.tolist()]
 
 
 def _coupling_pairs(survivors: Sequence[Chain], form: str) -> list[str]:
     """Proton pairs with a predicted coupling in ``form`` for any survivor (ring order)."""
     seen: dict[str, None] = {}
-    for chain in survivors[:64]:
-        for pair in record_of(chain).couplings.get(form, {}):
+    for pairs in tables.values(f"derived|coupling_pairs_{form}", survivors[:64]):
+        for pair in pairs:
             seen.setdefault(pair, None)
     return list(seen)
 
@@ -272,12 +263,13 @@ def _experiments_for(
             if ref_key is None:
                 continue
 
-            def rel(s: Sequence[Chain], r: str = reaction, rk: frozenset = ref_key) -> dict[Chain, Hashable]:
-                out_map: dict[Chain, Hashable] = {}
-                for c in s:
-                    k = product_key(r, c)
-                    out_map[c] = "no product" if k is None else reactions.relation_of_sets(k, rk)
-                return out_map
+            def rel(s: Sequence[Chain], r: str = reaction, rk: frozenset = ref_key) -> list[Hashable]:
+                got, vals = tables.codes(f"product|{r}", s)
+                words = {  # one relation per distinct product set
+                    c: "no product" if vals[c] is None else reactions.relation_of_sets(vals[c], rk)
+                    for c in np.unique(got).tolist()
+                }
+                return [words[c] for c in got.tolist()]
 
             fields = {"reaction": reaction, "members": [uid, ref]}
             out.append(
@@ -286,19 +278,11 @@ def _experiments_for(
     for other in others:
         del other  # relations between unknowns are scored jointly below
 
-    def extension(s: Sequence[Chain]) -> dict[Chain, Hashable]:
-        res: dict[Chain, Hashable] = {}
-        for c in s:
-            prods = record_of(c).chain_extension
-            res[c] = "+".join(sorted(_aldaric_word(p) for p in prods)) if prods else "does not apply"
-        return res
+    def extension(s: Sequence[Chain]) -> list[Hashable]:
+        return tables.values("derived|extension_aldaric", s)
 
-    def shortening(s: Sequence[Chain]) -> dict[Chain, Hashable]:
-        res: dict[Chain, Hashable] = {}
-        for c in s:
-            prod = record_of(c).chain_shortening
-            res[c] = _aldaric_word(prod) if prod else "does not apply"
-        return res
+    def shortening(s: Sequence[Chain]) -> list[Hashable]:
+        return tables.values("derived|shortening_aldaric", s)
 
     out.append(
         (
@@ -430,28 +414,19 @@ def plan(
         if len(survivors) <= 1:
             continue
         mine = worlds.get(uid)
+        # outcome functions return one label per survivor, in order; units are joint worlds or survivors
+        if mine:
+            row_of = {c: i for i, c in enumerate(survivors)}
+            rows = [row_of[w[uid]] for w in mine]
+            unit_names = [display_name(w[uid]) for w in mine]
+        else:
+            unit_names = [display_name(c) for c in survivors]
         for kind, fields, title, fn in _experiments_for(uid, survivors, ()):
-            per_chain = fn(survivors)
+            per_survivor = fn(survivors)
             if mine:
-                add(
-                    kind,
-                    fields,
-                    title,
-                    uid,
-                    [per_chain[w[uid]] for w in mine],
-                    [display_name(w[uid]) for w in mine],
-                    f"worlds:{uid}",
-                )
+                add(kind, fields, title, uid, [per_survivor[i] for i in rows], unit_names, f"worlds:{uid}")
             else:
-                add(
-                    kind,
-                    fields,
-                    title,
-                    uid,
-                    [per_chain[c] for c in survivors],
-                    [display_name(c) for c in survivors],
-                    uid,
-                )
+                add(kind, fields, title, uid, list(per_survivor), unit_names, uid)
         if mine:
             others = [u for u in project.unknown_ids if u != uid and frozenset((uid, u)) not in done_pairs]
             for kind, fields, title, labels, names in _pair_experiments(uid, others, mine):

@@ -1,0 +1,143 @@
+"""Outcome tables: columns equal fresh predictions, survive a round trip, and are keyed by the rules.
+
+The expected values here are computed afresh from the structures through the
+one prediction layer (``outcomes.predict``/``product_key`` on each chain), never
+read back from a table.
+"""
+
+from __future__ import annotations
+
+import random
+import subprocess
+import sys
+from pathlib import Path
+
+import pytest
+
+from workbench.chem import Scope
+from workbench.chem.catalogue import catalogue
+from workbench.evidence import outcomes, tables
+from workbench.evidence.engine import solve
+from workbench.evidence.observations import observation_from_dict
+from workbench.evidence.project import project_from_dict
+
+ROOT = Path(__file__).resolve().parent.parent
+BROAD = Scope(carbons=(3, 4, 5, 6, 7, 8, 9), modifications=("any",))
+
+
+def _fresh(key: str, chain):
+    """The value of column ``key`` for ``chain``, computed without any table."""
+    head, _, rest = key.partition("|")
+    if head == "product":
+        return outcomes.product_key(rest, chain)
+    if head == "derived":
+        return tables._DERIVED[rest](chain)
+    return outcomes.predict(tables._probe(key), chain)
+
+
+def _same(a, b) -> bool:
+    if a is outcomes.NO_PREDICTION or b is outcomes.NO_PREDICTION:
+        return a is b
+    return a == b
+
+
+def test_every_standard_column_equals_fresh_predictions_on_a_sample():
+    chains = list(catalogue(BROAD))
+    sample = random.Random(17).sample(chains, 40)
+    for key in tables.standard_keys():
+        got = tables.values(key, sample)
+        for chain, value in zip(sample, got, strict=True):
+            assert _same(value, _fresh(key, chain)), (key, chain.pattern)
+
+
+def test_a_saved_table_is_read_back_in_a_new_process_with_the_same_values(tmp_path):
+    chains = list(catalogue(Scope(carbons=(5, 6), modifications=("none", "deoxy:6"))))
+    keys = [
+        tables.column_key("aldaric_acid"),
+        tables.column_key("periodate", substrate="methyl_pyranoside"),
+        "product|osazone",
+    ]
+    tables.warm(chains, keys)
+    path = tables.save(tmp_path / "t.pkl.gz", keys)
+    code = (
+        "import sys, json\n"
+        "from workbench.evidence import tables\n"
+        "from workbench.chem import Scope\n"
+        "from workbench.chem.catalogue import catalogue\n"
+        f"data = tables._read(__import__('pathlib').Path({str(path)!r}))\n"
+        "tables._STORE.loaded = True\n"
+        "tables._STORE._merge(data)\n"
+        "chains = list(catalogue(Scope(carbons=(5, 6), modifications=('none', 'deoxy:6'))))\n"
+        f"keys = {keys!r}\n"
+        "rows = tables._STORE.index(chains)\n"
+        "before = {k: int((tables._STORE.column(k).codes[rows] >= 0).sum()) for k in keys}\n"
+        "print(json.dumps({'before': before, 'values': {k: [repr(v) for v in tables.values(k, chains)] for k in keys}}))\n"
+    )
+    env_out = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, check=True)
+    import json
+
+    result = json.loads(env_out.stdout)
+    for key in keys:
+        assert result["before"][key] == len(chains)  # every row came from the file, none recomputed
+        assert result["values"][key] == [repr(_fresh(key, c)) for c in chains]
+
+
+def test_a_changed_rule_invalidates_the_tables(tmp_path, monkeypatch):
+    chains = list(catalogue(Scope(carbons=(4,))))
+    tables.warm(chains, [tables.column_key("alditol")])
+    path = tables.save(tmp_path / "t.pkl.gz", [tables.column_key("alditol")])
+    assert tables._read(path) is not None
+    monkeypatch.setattr(tables, "rules_key", lambda: "0.0.0-a-changed-rule")
+    assert tables._read(path) is None
+
+
+def test_the_rules_key_hashes_the_chemistry_source(tmp_path, monkeypatch):
+    # a copy of the package with one reaction module edited gets another key
+    import shutil
+
+    copy = tmp_path / "workbench"
+    shutil.copytree(ROOT / "workbench", copy)
+    code = "from workbench.evidence import tables; print(tables.rules_key())"
+    here = subprocess.run([sys.executable, "-c", code], cwd=tmp_path, capture_output=True, text=True, check=True)
+    reactions = copy / "chem" / "reactions.py"
+    reactions.write_text(reactions.read_text() + "\n# a changed rule\n")
+    there = subprocess.run([sys.executable, "-c", code], cwd=tmp_path, capture_output=True, text=True, check=True)
+    assert here.stdout.strip() and here.stdout != there.stdout
+
+
+LOGIC = [
+    {"kind": "bromine_water", "result": "oxidised"},
+    {"kind": "bromine_water", "result": "unchanged"},
+    {"kind": "reducing_test", "result": "negative"},
+    {"kind": "ketose_test", "result": "positive"},
+    {"kind": "aldaric_acid", "optically_active": False},
+    {"kind": "alditol", "optically_active": True},
+    {"kind": "carbon_count", "value": 6},
+    {"kind": "series", "value": "L"},
+    {"kind": "molecular_formula", "value": "C6H12O5"},
+    {"kind": "periodate", "substrate": "methyl_pyranoside", "periodate": 2, "formic_acid": 1, "formaldehyde": 0},
+]
+
+
+@pytest.mark.parametrize("fields", LOGIC, ids=lambda f: f["kind"])
+def test_judging_each_distinct_value_once_keeps_exactly_what_fits_keeps(fields):
+    chains = list(catalogue(Scope(carbons=(4, 5, 6), modifications=("any",))))
+    obs = observation_from_dict({"id": "E1", "unknown": "U1", **fields})
+    kept = tables.keep(obs, chains, outcomes.fits)
+    assert kept == [c for c in chains if outcomes.fits(obs, c).fits]
+
+
+def test_a_solve_through_the_tables_matches_judging_every_candidate():
+    # the engine's survivors equal a plain filter by fits, observation by observation
+    project = project_from_dict(
+        {
+            "format": "stereosieve-project",
+            "version": 1,
+            "unknowns": [{"id": "U1", "scope": {"carbons": [5, 6], "modifications": ["any"]}}],
+            "observations": [{"id": f"E{i}", "unknown": "U1", **f} for i, f in enumerate(LOGIC[:2] + LOGIC[4:5])],
+        }
+    )
+    expected = list(catalogue(project.unknown("U1").scope))
+    for obs in project.observations:
+        expected = [c for c in expected if outcomes.fits(obs, c).fits]
+    assert list(solve(project).survivors["U1"]) == expected
