@@ -80,7 +80,7 @@ def test_solve_keeps_exactly_the_candidates_predict_answers_with(kind, observed,
 @pytest.mark.parametrize("kind", TESTS)
 def test_plan_partitions_the_whole_catalogue_as_predict_answers(kind, largest, by_template):
     answer = {c: _record_answer(kind, chains[0]) for chains in by_template.values() for c in chains}
-    labels = _unary_outcomes(kind, {"unknown": "X"}, largest)
+    labels = dict(zip(largest, _unary_outcomes(kind, {"unknown": "X"}, largest), strict=True))
     assert labels == answer
 
 
