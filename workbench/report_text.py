@@ -9,6 +9,7 @@ from __future__ import annotations
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name, systematic_name
 from workbench.chem.smiles import to_inchikey, to_smiles
+from workbench.chem.symbols import symbol
 
 __all__ = ["identity_json", "predict_json", "predict_text", "compound_text"]
 
@@ -23,6 +24,7 @@ def identity_json(chain: Chain) -> dict:
         "carbons": chain.carbons,
         "series": chain.series,
         "formula": chain.formula,
+        "symbol": symbol(chain),
     }
 
 
@@ -41,7 +43,8 @@ def predict_text(chain: Chain) -> str:
     ident = identity_json(chain)
     lines = [
         f"{ident['name']}  ({ident['systematic_name']})",
-        f"  formula {ident['formula']}, {ident['carbons']} carbons, series {ident['series'] or '-'}",
+        f"  formula {ident['formula']}, {ident['carbons']} carbons, series {ident['series'] or '-'}"
+        + (f", symbol {ident['symbol']}" if ident["symbol"] else ""),
         f"  SMILES   {ident['smiles']}",
         f"  InChIKey {ident['inchikey']}",
     ]

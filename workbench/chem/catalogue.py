@@ -10,6 +10,8 @@ Modification words:
 - ``none``: the parent aldoses and 2-ketoses.
 - ``deoxy:N`` or ``deoxy:N,M``: H in place of OH at C-N (CH3 at a chain end).
 - ``amino:N``: NH2 in place of OH at C-N (N a stereocentre).
+- ``acetamido:N``: NHAc (N-acetyl amino, the form of most natural amino
+  sugars: GlcNAc is ``acetamido:2``) in place of OH at C-N.
 - ``omethyl:N``: OMe in place of OH at C-N.
 - ``uronic``: the last carbon of an aldose is COOH.
 - words joined with ``+`` combine, e.g. ``amino:2+deoxy:6``.
@@ -51,11 +53,14 @@ class Modification:
     amino: frozenset[int] = frozenset()
     omethyl: frozenset[int] = frozenset()
     uronic: bool = False
+    acetamido: frozenset[int] = frozenset()
 
     @property
     def word(self) -> str:
         """The modification word this variant is written as."""
         parts = []
+        if self.acetamido:
+            parts.append("acetamido:" + ",".join(map(str, sorted(self.acetamido))))
         if self.amino:
             parts.append("amino:" + ",".join(map(str, sorted(self.amino))))
         if self.deoxy:
@@ -95,6 +100,10 @@ class Modification:
             if not 1 <= k <= n or groups[k - 1] != "CHOH":
                 return None
             groups[k - 1] = "CHOMe"
+        for k in self.acetamido:
+            if not 1 <= k <= n or groups[k - 1] != "CHOH":
+                return None
+            groups[k - 1] = "CHNHAc"
         return tuple(groups)
 
 
@@ -113,6 +122,7 @@ def parse_modification(word: str) -> Modification:
     deoxy: frozenset[int] = frozenset()
     amino: frozenset[int] = frozenset()
     omethyl: frozenset[int] = frozenset()
+    acetamido: frozenset[int] = frozenset()
     uronic = False
     text = word.strip()
     if text == "none":
@@ -126,16 +136,19 @@ def parse_modification(word: str) -> Modification:
             amino |= _positions(where, word)
         elif name in ("omethyl", "O-methyl"):
             omethyl |= _positions(where, word)
+        elif name == "acetamido":
+            acetamido |= _positions(where, word)
         elif name == "uronic" and not where:
             uronic = True
         else:
             raise ScopeError(
                 f"unknown modification {word!r}; use none, any, uronic, deoxy:N[,M], amino:N, "
-                "omethyl:N, or several joined with '+'"
+                "acetamido:N, omethyl:N, or several joined with '+'"
             )
-    if deoxy & amino or deoxy & omethyl or amino & omethyl:
+    sets = (deoxy, amino, omethyl, acetamido)
+    if any(a & b for i, a in enumerate(sets) for b in sets[i + 1 :]):
         raise ScopeError(f"modification {word!r} puts two changes on one carbon")
-    return Modification(deoxy, amino, omethyl, uronic)
+    return Modification(deoxy, amino, omethyl, uronic, acetamido)
 
 
 def _any_variants(carbons: int, carbonyl: str) -> list[Modification]:

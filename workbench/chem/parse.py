@@ -17,6 +17,7 @@ from rdkit.Chem import rdCIPLabeler
 from workbench.chem.chain import LEFT, RIGHT, STEREO_GROUPS, Chain
 from workbench.chem.names import display_name, from_name, ring_name
 from workbench.chem.smiles import RingForm, canonical, quiet_rdkit, ring_forms, to_smiles
+from workbench.chem.symbols import from_symbol
 from workbench.errors import NameNotRecognisedError, StructureError
 
 __all__ = ["Compound", "from_smiles", "read_compound", "resolve", "open_ring"]
@@ -227,6 +228,10 @@ def read_compound(text: str) -> Compound:
     try:
         return Compound(from_name(text))
     except NameNotRecognisedError as name_error:
+        try:
+            return Compound(from_symbol(text))  # IUPAC symbols: GlcNAc, L-Rha, LDmanHep
+        except NameNotRecognisedError:
+            pass
         if any(ch in text for ch in "=@[]()") or text.strip().isupper():
             try:
                 chain = from_smiles(text.strip())

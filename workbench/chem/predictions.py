@@ -27,7 +27,7 @@ from workbench.chem import reactions
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.periodate import PeriodateResult, SmithResult, periodate_oxidation, smith_degradation
-from workbench.chem.reactions import Lactone, NotApplicable, Outcome, relation_of_sets
+from workbench.chem.reactions import Lactone, NotApplicable, Outcome, Uncertain, relation_of_sets
 from workbench.chem.smiles import to_smiles
 from workbench.errors import ObservationError
 
@@ -70,8 +70,8 @@ PRODUCT_REACTIONS = ("osazone", "aldaric_acid", "alditol", "aldonic_acid", "chai
 
 
 def _value(result: Any) -> Any:
-    """``result`` unless it is :class:`NotApplicable` (then None)."""
-    return None if isinstance(result, NotApplicable) else result
+    """``result`` unless it is :class:`NotApplicable` or :class:`Uncertain` (then None)."""
+    return None if isinstance(result, (NotApplicable, Uncertain)) else result
 
 
 @dataclass(frozen=True)
@@ -97,7 +97,7 @@ class Prediction:
 
     # ------------------------------------------------------------ raw results
     @cached_property
-    def _aldaric(self) -> Chain | NotApplicable:
+    def _aldaric(self) -> Chain | NotApplicable | Uncertain:
         return reactions.aldaric_acid(self.chain)
 
     @cached_property
@@ -113,7 +113,7 @@ class Prediction:
         return reactions.alditols(self.chain)
 
     @cached_property
-    def _osazone(self) -> Chain | NotApplicable:
+    def _osazone(self) -> Chain | NotApplicable | Uncertain:
         return reactions.osazone(self.chain)
 
     @cached_property
@@ -121,7 +121,7 @@ class Prediction:
         return reactions.extend(self.chain)
 
     @cached_property
-    def _shortening(self) -> Chain | NotApplicable:
+    def _shortening(self) -> Chain | NotApplicable | Uncertain:
         return reactions.shorten(self.chain)
 
     @cached_property
@@ -248,6 +248,17 @@ class Prediction:
         raw += [(f"periodate.{key}", self._periodate_raw(key)) for key in _FORMS]
         raw += [(f"smith_degradation.{key}", self._smith_raw(key, ring)) for key, ring in _SMITH_FORMS]
         return tuple((key, value.reason) for key, value in raw if isinstance(value, NotApplicable))
+
+    def uncertain(self, reaction: str) -> str | None:
+        """"uncertain, because ..." where the chemistry of ``reaction`` is doubtful (no prediction), else None.
+
+        ``reaction`` is ``aldaric_acid``, ``osazone`` or ``chain_shortening``
+        (the reactions with doubtful cases, :class:`workbench.chem.reactions.Uncertain`).
+        """
+        raw = {"aldaric_acid": self._aldaric, "osazone": self._osazone, "chain_shortening": self._shortening}.get(
+            reaction
+        )
+        return raw.reason if isinstance(raw, Uncertain) else None
 
     # ------------------------------------------------------------ look-ups
     def products(self, reaction: str) -> frozenset[str]:
@@ -446,4 +457,5 @@ def predictions_json(chain: Chain) -> dict:
         "ketose_test": p.ketose_test.reason,
     }
     out["not_applicable"] = dict(p.not_applicable)
+    out["uncertain"] = {r: why for r in ("aldaric_acid", "osazone", "chain_shortening") if (why := p.uncertain(r))}
     return out

@@ -12,8 +12,10 @@ Textbook rules (Collins and Ferrier, *Monosaccharides*, 1995; Carey,
 - bromine water oxidises the aldehyde of an aldose to the aldonic acid;
   ketoses are not oxidised.
 - warm dilute nitric acid oxidises both chain ends of an aldose (aldehyde and
-  primary alcohol) to the aldaric acid; a ketose is cleaved (no aldaric acid)
-  and a terminal CH3 (6-deoxy sugar) is not oxidised to a carboxyl.
+  primary alcohol) to the aldaric acid; a ketose is cleaved (no aldaric acid).
+  A terminal CH3 (6-deoxy sugar) is not oxidised to a carboxyl, but the chain
+  is attacked, and amino sugars are deaminated: both are doubtful, so they
+  give :class:`Uncertain` (no prediction, kept and flagged).
 - sodium borohydride reduces the carbonyl: one alditol from an aldose, the two
   C-2 epimeric alditols from a 2-ketose.
 - phenylhydrazine (excess) converts C-1 and C-2 to the bis-phenylhydrazone
@@ -56,6 +58,7 @@ from workbench.errors import StructureError
 
 __all__ = [
     "NotApplicable",
+    "Uncertain",
     "Outcome",
     "Lactone",
     "bromine_water",
@@ -67,6 +70,7 @@ __all__ = [
     "alditols",
     "osazone",
     "extend",
+    "extension_parent",
     "shorten",
     "relation",
     "relation_of_sets",
@@ -79,6 +83,25 @@ class NotApplicable:
     """The experiment gives no such product; ``reason`` says why, in words."""
 
     reason: str
+
+    def __bool__(self) -> Literal[False]:
+        return False
+
+
+@dataclass(frozen=True)
+class Uncertain:
+    """The chemistry is doubtful: no prediction is made; candidates are kept and flagged.
+
+    ``reason`` reads "uncertain, because ..." and names the source of the
+    doubt. Like :class:`NotApplicable` it is falsy (no product to compare),
+    but the evidence layer maps it to "no prediction", never to "no product".
+    """
+
+    reason: str
+
+    def __post_init__(self) -> None:
+        if not self.reason.startswith("uncertain, because "):
+            raise StructureError(f"an Uncertain reason must start 'uncertain, because ': {self.reason!r}")
 
     def __bool__(self) -> Literal[False]:
         return False
@@ -224,16 +247,23 @@ def lactones(chain: Chain) -> tuple[Lactone, ...] | NotApplicable:
     return out
 
 
-def aldaric_acid(chain: Chain) -> Chain | NotApplicable:
+def aldaric_acid(chain: Chain) -> Chain | NotApplicable | Uncertain:
     """Nitric-acid product: both chain ends to carboxylic acids."""
     if chain.is_alditol:
         return NotApplicable("an alditol: nitric acid on alditols is not predicted here")
     if chain.carbonyl != "aldose":
         return NotApplicable("nitric acid cleaves a ketose's chain next to the carbonyl; no aldaric acid forms")
+    if chain.amino_positions or chain.acetamido_positions:
+        return Uncertain(
+            "uncertain, because nitrous species in nitric acid deaminate amino sugars (glucosamine gives a "
+            "2,5-anhydro diacid [from memory]), and hot acid frees an N-acetyl amine first; no diacid is predicted"
+        )
     last = chain.groups[-1]
     if last == "CH3":
-        return NotApplicable(
-            "the terminal CH3 of a deoxy sugar is not oxidised by nitric acid; no diacid (aldaric acid) forms"
+        return Uncertain(
+            "uncertain, because the terminal CH3 is not oxidised to a carboxyl, yet nitric acid attacks the "
+            "chain of a methyl sugar (L-rhamnose gives a trihydroxyglutaric acid [from memory]); which diacid "
+            "forms, and whether it is optically active, is not predicted"
         )
     if last not in ("CH2OH", "COOH"):
         return NotApplicable(f"the terminal {last} cannot become a carboxylic acid")
@@ -262,8 +292,21 @@ def alditols(chain: Chain) -> tuple[Chain, ...] | NotApplicable:
     return NotApplicable("no carbonyl group to reduce")
 
 
-def osazone(chain: Chain) -> Chain | NotApplicable:
-    """Phenylosazone: C-1 and C-2 as phenylhydrazones."""
+def osazone(chain: Chain) -> Chain | NotApplicable | Uncertain:
+    """Phenylosazone: C-1 and C-2 as phenylhydrazones.
+
+    A 2-O-methyl aldose gives the parent sugar's osazone with loss of
+    methanol (classical methylation work [from memory]); a 2-amino aldose
+    gives the parent's osazone (D-glucosamine gives D-glucosazone [common
+    practice]). For a 2-acetamido aldose no prediction is made.
+    """
+    if chain.carbonyl == "aldose" and chain.groups[1] == "CHOMe":
+        return osazone(chain.replace(2, "CHOH", chain.sides[1]))
+    if chain.carbonyl == "aldose" and chain.groups[1] == "CHNHAc":
+        return Uncertain(
+            "uncertain, because an N-acetyl group at C-2 must be lost (as acetamide) before the osazone can form; "
+            "whether the parent's osazone forms under the usual conditions is not predicted [from memory]"
+        )
     if chain.carbonyl == "aldose":
         if chain.groups[1] not in ("CHOH", "CHNH2"):
             return NotApplicable("C-2 carries no OH or NH2; only a phenylhydrazone forms")
@@ -274,6 +317,13 @@ def osazone(chain: Chain) -> Chain | NotApplicable:
         return NotApplicable("no free carbonyl group")
     out = chain.replace(1, "CHNNPh")
     return out.replace(2, "CNNPh")
+
+
+def extension_parent(chain: Chain) -> Chain | None:
+    """The aldose that Kiliani-Fischer extension turns into ``chain`` (C-1 removed, structurally)."""
+    if chain.carbonyl != "aldose" or chain.groups[1] != "CHOH" or chain.carbons < 4:
+        return None
+    return Chain(("CHO",) + chain.groups[2:], (None,) + chain.sides[2:])
 
 
 def extend(chain: Chain) -> tuple[Chain, Chain] | NotApplicable:
@@ -288,10 +338,20 @@ def extend(chain: Chain) -> tuple[Chain, Chain] | NotApplicable:
     return (right, left)
 
 
-def shorten(chain: Chain) -> Chain | NotApplicable:
-    """Ruff or Wohl degradation: lose C-1; C-2 becomes the new aldehyde."""
+def shorten(chain: Chain) -> Chain | NotApplicable | Uncertain:
+    """Ruff or Wohl degradation: lose C-1; C-2 becomes the new aldehyde.
+
+    A uronic acid is not predicted: after bromine water both chain ends are
+    alpha-hydroxy acids, so Ruff's oxidative decarboxylation may act at either
+    end, and the Wohl sequence meets a free carboxyl.
+    """
     if chain.carbonyl != "aldose":
         return NotApplicable("Ruff and Wohl degradations start from an aldose")
+    if chain.is_uronic:
+        return Uncertain(
+            "uncertain, because after bromine water both ends of a uronic acid are alpha-hydroxy acids, so "
+            "Ruff's decarboxylation may remove either end carbon (from memory); the product is not predicted"
+        )
     if chain.groups[1] != "CHOH":
         return NotApplicable("C-2 carries no OH, so no new aldehyde can form")
     if chain.carbons < 4:

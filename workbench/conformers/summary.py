@@ -58,6 +58,8 @@ def physical_json(chain: Chain) -> dict:
     About 0.3 ms per new chain, microseconds when its parts are cached.
     """
     fractions = anomer_fractions(chain)
+    if chain.has_nitrogen:  # Angyal's scheme has no amino or acetamido terms: not borrowed from the parent
+        fractions = dict.fromkeys(fractions)
     return {
         "anomers": {k: _round(v, _FRACTION_DIGITS) for k, v in fractions.items()},
         "chairs": {
@@ -90,6 +92,11 @@ def physical_notes(chain: Chain) -> tuple[str, ...]:
         notes.append(
             "furanose and open-chain fractions are not predicted (Angyal's scheme covers chairs only); "
             "pyranose fractions are those of the pyranose pool"
+        )
+    if forms and chain.has_nitrogen:
+        notes.append(
+            "anomer fractions of amino and N-acetyl amino sugars are not predicted: Angyal's scheme has no "
+            "terms for NH2 or NHAc (N-acetyl-D-glucosamine is mostly alpha in water, glucose mostly beta [from memory])"
         )
     if any(f.ring == "furanose" for f in forms):
         notes.append("furanose couplings are not in the fast path; see ring_couplings_3d (MMFF94 conformers)")

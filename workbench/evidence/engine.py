@@ -133,16 +133,19 @@ def _shortened(chain: Chain) -> Chain | None:
 
 def _extension_parent(chain: Chain) -> Chain | None:
     """The aldose that Kiliani-Fischer extension turns into ``chain`` (if any)."""
-    if chain.carbonyl != "aldose" or chain.groups[1] != "CHOH" or chain.carbons < 4:
-        return None
-    return _shortened(chain)
+    return reactions.extension_parent(chain)
+
+
+def _doubtful(reaction: str, chain: Chain) -> bool:
+    """No prediction for ``chain``'s product (the chemistry is doubtful): a relation on it keeps the candidate."""
+    return record_of(chain).uncertain(reaction) is not None
 
 
 def _product_test(reaction: str, relation: str):
     def test(x: Chain, y: Chain) -> bool:
         kx, ky = product_key(reaction, x), product_key(reaction, y)
         if kx is None or ky is None:
-            return False
+            return _doubtful(reaction, x) or _doubtful(reaction, y)
         rel = reactions.relation_of_sets(kx, ky)
         if relation == "different":
             return rel != "identical"
@@ -167,7 +170,10 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
         names = [ref(m) for m in obs.members]
         test = _product_test(obs.reaction, obs.relation)
         tokens = None
-        if obs.relation == "identical":
+        scopes = [project.unknown(m).scope for m in obs.members if m in project.unknown_ids]
+        wild = any(_doubtful(obs.reaction, c) for s in scopes for c in catalogue(s))
+        wild = wild or any(_doubtful(obs.reaction, c) for c in fixed.values())
+        if obs.relation == "identical" and not wild:  # doubtful products match anything: no index
 
             def tokens(c: Chain, r: str = obs.reaction):
                 return product_key(r, c) or ()
@@ -199,14 +205,16 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
             out.append(Binary(prods[0], prods[1], lambda x, y: x != y, obs.id))
     elif kind == "chain_shortening":
         sub, prod = ref(obs.substrate), ref(obs.product)
+        substrates = list(catalogue(project.unknown(sub).scope)) if sub in project.unknown_ids else list(fixed.values())
+        wild = any(_doubtful("chain_shortening", c) for c in substrates)  # doubtful: any product kept, no index
         out.append(
             Binary(
                 sub,
                 prod,
-                lambda s, q: _shortened(s) == q,
+                lambda s, q: _shortened(s) == q or _doubtful("chain_shortening", s),
                 obs.id,
-                lambda s: (x for x in (_shortened(s),) if x is not None),
-                lambda q: (q,),
+                None if wild else (lambda s: (x for x in (_shortened(s),) if x is not None)),
+                None if wild else (lambda q: (q,)),
             )
         )
     else:

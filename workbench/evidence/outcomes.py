@@ -83,6 +83,8 @@ def _physical(kind: str, chain: Chain, obs: Observation) -> Any:
         sign = record.rotation_sign  # some sugars have only a published sign
         return NO_PREDICTION if sign is None else ("sign", sign)
     if kind == "anomer_ratio":
+        if chain.has_nitrogen:  # Angyal's scheme has no NH2/NHAc terms; not borrowed from the parent sugar
+            return NO_PREDICTION
         if chain.carbonyl == "ketose":
             # Angyal's pyranose scheme misses D-fructose by 0.2 (0.26 vs 0.03 alpha of the pyranoses;
             # Barclay et al., Carbohydr. Res. 347, 136, 2012), so ketoses are kept, not judged
@@ -115,7 +117,8 @@ def predict(obs: Observation, chain: Chain) -> Any:
     if kind == "ketose_test":
         return record_of(chain).ketose_test.result
     if kind == "aldaric_acid":
-        return record_of(chain).aldaric_acid_active
+        record = record_of(chain)
+        return NO_PREDICTION if record.uncertain("aldaric_acid") else record.aldaric_acid_active
     if kind == "alditol":
         return record_of(chain).alditol_active
     if kind == "molecular_formula":
@@ -167,7 +170,8 @@ def fits(obs: Observation, chain: Chain) -> Verdict:
     observed = _observed(obs)
     kind = obs.KIND
     if predicted is NO_PREDICTION:
-        return Verdict(True, f"{kind}: no prediction for {display_name(chain)}; kept", flagged=True)
+        why = record_of(chain).uncertain(kind) if kind == "aldaric_acid" else None
+        return Verdict(True, f"{kind}: no prediction for {display_name(chain)} ({why or 'no model value'}); kept", True)
     if predicted is None:
         reason = {
             "aldaric_acid": "gives no aldaric acid (ketose cleaved or terminal CH3 not oxidised)",

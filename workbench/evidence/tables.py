@@ -151,7 +151,7 @@ def _aldaric_word(chain: Chain | None) -> str:
         return "no product"
     active = record_of(chain).aldaric_acid_active
     if active is None:
-        return "no aldaric acid"
+        return "no prediction" if record_of(chain).uncertain("aldaric_acid") else "no aldaric acid"
     return "active" if active else "meso"
 
 
@@ -166,6 +166,8 @@ def _shortening_word(chain: Chain) -> str:
     from workbench.chem.predictions import predict as record_of
 
     prod = record_of(chain).chain_shortening
+    if prod is None and record_of(chain).uncertain("chain_shortening"):
+        return "no prediction"
     return _aldaric_word(prod) if prod else "does not apply"
 
 
