@@ -85,7 +85,14 @@ def test_linked_positions_exclude_anomeric_and_ring_oxygen():
 
 def test_catalogue_counts_linkage_subsets():
     # a hexopyranose has 4 free positions: 1 + 4 + 6 subsets of at most two (combinatorics)
-    scope = ResidueScope(Scope(carbons=(6,), carbonyl=("aldose",), series=("D",)), ("pyranose",), ("alpha",), 2)
+    scope = ResidueScope(
+        carbons=(6,),
+        carbonyl=("aldose",),
+        series=("D",),
+        modifications=("none",),
+        ring=("pyranose",),
+        anomer=("alpha",),
+    )
     assert len(residue_catalogue(scope)) == 8 * 11
     wide = ResidueScope.from_dict({"sugars": ["D-glucose"], "ring": ["pyranose"], "max_linked": 4})
     assert len(residue_catalogue(wide)) == 2 * 16  # two anomers, every subset of 4 positions

@@ -99,8 +99,31 @@ def _short(value: object) -> str:
 
 
 # ------------------------------------------------------------------ solutions
+def residue_json(residue) -> dict:
+    """A residue survivor (Contract 5): sugar, ring, anomer, linked_positions, name (condensed).
+
+    Also ``display`` (arrows and Greek letters), ``systematic_name`` and
+    ``inchikey`` of the sugar released on hydrolysis, ``smiles`` of the
+    residue with ``*`` for the neighbouring residues, and ``alditol_acetate``
+    (the predicted partially methylated alditol acetate, one or two names).
+    """
+    from workbench.chem.methylation import alditol_acetate
+
+    sugar = identity_json(residue.chain)
+    return {
+        **residue.to_dict(),
+        "display": residue.display,
+        "systematic_name": sugar["systematic_name"],
+        "smiles": residue.smiles,
+        "inchikey": sugar["inchikey"],
+        "alditol_acetate": list(alditol_acetate(residue).names),
+    }
+
+
 def survivor_json(chain: Chain) -> dict:
-    """One survivor as Contract 2 lists it (the naming part of :func:`identity_json`)."""
+    """One survivor as Contract 2 lists it (the naming part of :func:`identity_json`; residues: Contract 5)."""
+    if not isinstance(chain, Chain):  # a glycan residue
+        return residue_json(chain)
     ident = identity_json(chain)
     return {key: ident[key] for key in ("name", "systematic_name", "smiles", "inchikey")}
 

@@ -225,6 +225,10 @@ class Scope:
             out["sugars"] = list(self.sugars)
         return out
 
+    def candidates(self) -> tuple[Chain, ...]:
+        """Every candidate of this scope (:func:`catalogue`); subclasses list other kinds of candidate."""
+        return catalogue(self)
+
     def variants(self, carbons: int, carbonyl: str) -> list[Modification]:
         """Distinct modifications of this scope that apply to one chain type."""
         seen: dict[Modification, None] = {}
@@ -297,6 +301,8 @@ def enumerate_scope(scope: Scope = DEFAULT_SCOPE) -> Iterator[Chain]:
 @lru_cache(maxsize=64)
 def catalogue(scope: Scope = DEFAULT_SCOPE) -> tuple[Chain, ...]:
     """All candidates of ``scope`` as a tuple (cached per scope)."""
+    if type(scope) is not Scope:  # a residue scope (chem.residue.ResidueScope) lists its own candidates
+        return scope.candidates()
     return tuple(enumerate_scope(scope))
 
 

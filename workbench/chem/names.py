@@ -210,7 +210,9 @@ def _stem(chain: Chain) -> str:
 
 @lru_cache(maxsize=65536)
 def systematic_name(chain: Chain) -> str:
-    """IUPAC-IUBMB systematic name of a sugar, e.g. ``6-deoxy-L-manno-hexose``."""
+    """IUPAC-IUBMB systematic name of a sugar, e.g. ``6-deoxy-L-manno-hexose`` (a glycan residue: its sugar's)."""
+    if not isinstance(chain, Chain):  # a chem.residue.Residue
+        return systematic_name(chain.chain)
     if is_alditol(chain):
         return alditol_names(chain)[1]
     if not chain.is_sugar:
@@ -247,7 +249,9 @@ def trivial_name(chain: Chain) -> str | None:
 
 @lru_cache(maxsize=65536)
 def display_name(chain: Chain) -> str:
-    """The trivial name where there is one, else the systematic name."""
+    """The trivial name where there is one, else the systematic name (a glycan residue: its condensed name)."""
+    if not isinstance(chain, Chain):  # a chem.residue.Residue
+        return chain.name
     return trivial_name(chain) or systematic_name(chain)
 
 

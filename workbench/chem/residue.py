@@ -320,20 +320,24 @@ _RESIDUE_KEYS = ("ring", "anomer", "max_linked")
 
 
 @dataclass(frozen=True)
-class ResidueScope:
-    """What a residue unknown may be: the sugars of ``sugars`` (a base :class:`Scope`), rings, anomers, linkage.
+class ResidueScope(Scope):
+    """What a residue unknown may be: the sugars (the keys of :class:`Scope`), rings, anomers, linkage.
 
     Defaults: the pentoses, hexoses, 6-deoxyhexoses and hexuronic acids of
     both series, aldoses and 2-ketoses (carbons 5-6, modifications none,
     deoxy:6, uronic); both rings, both anomers, at most 2 linked positions.
+    With ``sugars`` (names) the candidates are those sugars, filtered by the
+    other sugar keys only where they are given.
     """
 
-    sugars: Scope = Scope(carbons=(5, 6), modifications=("none", "deoxy:6", "uronic"))
+    carbons: tuple[int, ...] = (5, 6)
+    modifications: tuple[str, ...] = ("none", "deoxy:6", "uronic")
     ring: tuple[str, ...] = RINGS
     anomer: tuple[str, ...] = ANOMERS
     max_linked: int = 2
 
     def __post_init__(self) -> None:
+        super().__post_init__()
         for r in self.ring:
             if r not in RINGS:
                 raise ScopeError(f"scope 'ring': {r!r} is not 'pyranose' or 'furanose'")
@@ -345,31 +349,29 @@ class ResidueScope:
         m = self.max_linked
         if isinstance(m, bool) or not isinstance(m, int) or not 0 <= m <= 4:
             raise ScopeError(f"scope 'max_linked': {m!r} is not a whole number from 0 to 4")
-        for chain in catalogue(self.sugars):
-            if chain.amino_positions or chain.methoxy_positions:
+        for chain in catalogue(self.sugar_scope):
+            if chain.amino_positions or chain.methoxy_positions or "CHNHAc" in chain.groups:
                 raise ScopeError(
                     f"scope: {display_name(chain)} cannot be a residue here; amino and O-methyl sugars "
                     "are not modelled as glycan residues (their methylation products differ)"
                 )
 
+    @property
+    def sugar_scope(self) -> Scope:
+        """The plain :class:`Scope` of the sugars."""
+        return Scope(self.carbons, self.carbonyl, self.series, self.modifications, self.sugars)
+
     @classmethod
     def from_dict(cls, data: dict) -> ResidueScope:
         """The residue scope of a project file's ``scope`` object (missing keys take defaults)."""
-        base_keys = {"carbons", "carbonyl", "series", "modifications", "sugars"}
-        unknown = set(data) - base_keys - set(_RESIDUE_KEYS)
+        keys = ("carbons", "carbonyl", "series", "modifications", "sugars", "ring", "anomer")
+        unknown = set(data) - set(keys) - {"max_linked"}
         if unknown:
-            raise ScopeError(
-                f"unknown scope key(s) {sorted(unknown)}; use carbons, carbonyl, series, modifications, "
-                "sugars, ring, anomer, max_linked"
-            )
-        base = {k: v for k, v in data.items() if k in base_keys}
-        default = cls().sugars
-        if "sugars" in base:
-            sugars = Scope.from_dict(base)  # named sugars: the other keys filter only where given
-        else:
-            sugars = Scope.from_dict({**default.to_dict(), **base}) if base else default
-        kwargs: dict = {"sugars": sugars}
-        for key in ("ring", "anomer"):
+            raise ScopeError(f"unknown scope key(s) {sorted(unknown)}; use {', '.join(keys)}, max_linked")
+        kwargs: dict = {}
+        if "sugars" in data:  # named sugars: the other sugar keys filter only where given
+            kwargs.update(carbons=tuple(range(3, 10)), modifications=("none",))
+        for key in keys:
             if key in data:
                 if not isinstance(data[key], list):
                     raise ScopeError(f"scope '{key}' must be a list, got {type(data[key]).__name__}")
@@ -381,18 +383,22 @@ class ResidueScope:
     def to_dict(self) -> dict:
         """The project-file form of this scope."""
         return {
-            **self.sugars.to_dict(),
+            **super().to_dict(),
             "ring": list(self.ring),
             "anomer": list(self.anomer),
             "max_linked": self.max_linked,
         }
+
+    def candidates(self) -> tuple[Residue, ...]:  # type: ignore[override]
+        """Every residue of this scope (:func:`residue_catalogue`)."""
+        return residue_catalogue(self)
 
 
 DEFAULT_RESIDUE_SCOPE = ResidueScope()
 
 
 def _enumerate(scope: ResidueScope) -> Iterator[Residue]:
-    for chain in catalogue(scope.sugars):
+    for chain in catalogue(scope.sugar_scope):
         forms = ring_forms(chain)
         for ring in scope.ring:
             for anomer in scope.anomer:

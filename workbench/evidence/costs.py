@@ -47,6 +47,15 @@ CAUTIONS: dict[str, str] = {
     "concentrated; acetic anhydride is corrosive.",
     "hydrogen_peroxide": "Hydrogen peroxide with iron salts (Ruff degradation) is a strong oxidiser; "
     "add slowly with cooling.",
+    "methyl_iodide": "Methyl iodide is a toxic alkylating agent and a suspected carcinogen (H351): fume hood, "
+    "double gloves, no skin contact; destroy excess with aqueous ammonia or thiosulfate.",
+    "sodium_hydride_dmso": "Sodium hydride with DMSO (Hakomori) releases flammable hydrogen and the dimsyl "
+    "anion can decompose violently on heating: small scale, no heating, inert gas, no flames.",
+    "naoh_dmso": "Powdered NaOH in DMSO (Ciucanu-Kerek) is corrosive and DMSO carries solutes through skin: "
+    "gloves and goggles.",
+    "tfa": "Trifluoroacetic acid (hydrolysis) is corrosive and volatile: fume hood, acid-resistant gloves.",
+    "acetic_anhydride": "Acetic anhydride (acetylation, with pyridine or 1-methylimidazole) is corrosive and a "
+    "lachrymator: fume hood; pyridine is harmful.",
 }
 
 
@@ -93,6 +102,14 @@ COSTS: dict[str, Cost] = {
     "same_product:alditol": Cost(40, 6, 1, ("borohydride",)),
     "same_product:aldonic_acid": Cost(40, 6, 2, ("bromine",)),
     "chain_extension": Cost(200, 48, 3, ("cyanide", "nitric")),
+    # residue kinds: milligrams of the polysaccharide, one run for all its residue types [common practice]
+    "methylation_analysis": Cost(
+        5, 24, 2, ("methyl_iodide", "sodium_hydride_dmso", "naoh_dmso", "tfa", "borohydride", "acetic_anhydride")
+    ),
+    "smith_degradation": Cost(50, 72, 1, ("periodate", "borohydride", "tfa")),
+    "anomer": Cost(10, 2, 0),
+    "ring_form": Cost(10, 2, 0),
+    "molar_ratio": Cost(5, 24, 2, ("methyl_iodide", "sodium_hydride_dmso", "tfa", "acetic_anhydride")),
     "chain_shortening": Cost(150, 36, 2, ("bromine", "hydrogen_peroxide", "nitric")),
 }
 

@@ -27,6 +27,7 @@ from workbench.evidence.network import Binary, components, enumerate_solutions, 
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import fits, product_key
 from workbench.evidence.project import Project
+from workbench.evidence.residue_outcomes import Choices, balance_constraints
 
 if TYPE_CHECKING:
     import pandas as pd
@@ -217,6 +218,10 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
                 None if wild else (lambda q: (q,)),
             )
         )
+    elif kind == "molar_ratio":  # the branching balance of a polymer's residues (a hidden variable)
+        cons, hidden = balance_constraints(obs, {u.id: u.scope for u in project.unknowns})
+        out += cons
+        fixed.update(hidden)  # type: ignore[arg-type]
     else:
         raise ValueError(f"{kind} is not relational")
     return out, fixed
@@ -226,6 +231,11 @@ def _kept(obs: Observation, chains: list[Chain]) -> list[Chain]:
     """The candidates a unary observation keeps (through the outcome table where one applies)."""
     kept = tables.keep(obs, chains, fits)
     return kept if kept is not None else [c for c in chains if fits(obs, c).fits]
+
+
+def _fixed_domains(fixed: dict) -> dict[str, list]:
+    """One-value domains of named sugars; the values of hidden variables (:class:`Choices`)."""
+    return {name: list(v) if isinstance(v, Choices) else [v] for name, v in fixed.items()}
 
 
 def _scope_domains(project: Project) -> dict[str, list[Chain]]:
@@ -257,7 +267,7 @@ def _network(project: Project, observations: Iterable[Observation]):
     obs_list = list(observations)
     domains = unary_domains(project, obs_list)
     constraints, fixed = _relations(project, obs_list)
-    domains.update({name: [chain] for name, chain in fixed.items()})
+    domains.update(_fixed_domains(fixed))
     return domains, constraints
 
 
@@ -320,6 +330,7 @@ _WORDS = {
     "chain_extension": "Kiliani-Fischer relation",
     "chain_shortening": "Ruff/Wohl relation",
     "different": "requirement to be a different compound",
+    "molar_ratio": "branching balance (one more terminal residue than branch points)",
 }
 
 
@@ -377,7 +388,7 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
             domains[obs.unknown] = _kept(obs, domains[obs.unknown])
         else:
             new_cons, new_fixed = constraints_of(project, obs)
-        domains.update({k: [v] for k, v in {**fixed, **new_fixed}.items()})
+        domains.update(_fixed_domains({**fixed, **new_fixed}))
         result = None if any(not d for d in domains.values()) else supported_domains(domains, constraints + new_cons)
         trial = None if result is None else {k: v for k, v in result.items() if not k.startswith("=")}
         if trial is None:
@@ -448,7 +459,7 @@ def joint_worlds(solution: Solution, limit: int = 20000) -> dict[str, list[dict[
     active = [o for o in project.observations if o.id not in solution.disabled]
     domains: dict[str, list[Chain]] = {u: list(solution.survivors[u]) for u in project.unknown_ids}
     constraints, fixed = _relations(project, active)
-    domains.update({name: [chain] for name, chain in fixed.items()})
+    domains.update(_fixed_domains(fixed))
     out: dict[str, list[dict[str, Chain]]] = {}
     for group in components(domains, constraints):
         sub_domains = {v: domains[v] for v in group}

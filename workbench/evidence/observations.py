@@ -35,7 +35,9 @@ class FieldSpec:
 
     ``type`` is one of: ``unknown`` (an unknown's id), ``member`` (an unknown's
     id or a known sugar's name/SMILES), ``members`` (a list of those),
-    ``choice``, ``bool``, ``int``, ``float``, ``text``.
+    ``choice``, ``bool``, ``int``, ``float``, ``text``, ``positions`` (a list
+    of distinct carbon numbers from 1 to ``maximum``) and ``numbers`` (a list
+    of numbers of at least ``minimum``).
     """
 
     name: str
@@ -189,7 +191,7 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
                     "substrate",
                     "choice",
                     "what was oxidised",
-                    choices=("free", "alditol", "methyl_pyranoside", "methyl_furanoside"),
+                    choices=("free", "alditol", "methyl_pyranoside", "methyl_furanoside", "residue"),
                 ),
                 FieldSpec("periodate", "float", "IO4- consumed", unit="mol/mol", minimum=0),
                 FieldSpec("formic_acid", "float", "HCOOH formed", unit="mol/mol", minimum=0),
@@ -235,6 +237,33 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
             ),
         ),
         _kind(
+            "methylation_analysis",
+            "partially methylated alditol acetate of a residue (permethylation, hydrolysis, NaBD4, acetylation)",
+            (
+                _UNKNOWN,
+                FieldSpec("methyl", "positions", "carbons with O-methyl, numbered from the deuterated C", maximum=9),
+                FieldSpec("acetyl", "positions", "carbons with O-acetyl", maximum=9, min_items=1),
+            ),
+        ),
+        _kind(
+            "smith_degradation",
+            "fragment of a residue after periodate, borohydride and mild acid",
+            (
+                _UNKNOWN,
+                FieldSpec("product", "text", "a polyol or sugar name (glycerol, erythritol, D-threitol ...) or none"),
+            ),
+        ),
+        _kind(
+            "anomer",
+            "anomeric configuration of a residue (NMR, a specific glycosidase)",
+            (_UNKNOWN, FieldSpec("value", "choice", "alpha or beta", choices=("alpha", "beta"))),
+        ),
+        _kind(
+            "ring_form",
+            "ring size of a residue (13C NMR: furanosyl C-1 near 105-110 ppm; acid lability of furanosides)",
+            (_UNKNOWN, FieldSpec("value", "choice", "pyranose or furanose", choices=("pyranose", "furanose"))),
+        ),
+        _kind(
             "same_product",
             "relation between the products of several compounds",
             (
@@ -264,6 +293,31 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
                 FieldSpec("method", "choice", "route", choices=("kiliani_fischer", "nitromethane")),
                 FieldSpec("substrate", "member", "the aldose extended"),
                 FieldSpec("products", "members", "one or both products", min_items=1, max_items=2),
+            ),
+            unary=False,
+        ),
+        _kind(
+            "molar_ratio",
+            "molar amounts of the residue types of one polymer (GC-MS of the alditol acetates)",
+            (
+                FieldSpec("members", "members", "residue unknowns", min_items=2, max_items=12),
+                FieldSpec("amounts", "numbers", "relative molar amounts, in the order of members", minimum=0),
+                FieldSpec(
+                    "balance",
+                    "bool",
+                    "the members are every residue type of the polymer, so terminal residues balance branch points",
+                    required=False,
+                    default=True,
+                ),
+                FieldSpec(
+                    "tolerance",
+                    "float",
+                    "allowed imbalance as a fraction of all residues",
+                    required=False,
+                    default=0.1,
+                    minimum=0,
+                    maximum=1,
+                ),
             ),
             unary=False,
         ),
@@ -337,6 +391,29 @@ def _check(spec: FieldSpec, value: Any, oid: str | None) -> Any:
         if len(set(items)) != len(items):
             raise fail("lists the same member twice")
         return items
+    if spec.type == "positions":
+        if not isinstance(value, list) or not all(isinstance(v, int) and not isinstance(v, bool) for v in value):
+            raise fail(f"expected a list of carbon numbers such as [2, 3, 6], got {value!r}")
+        top = int(spec.maximum) if spec.maximum is not None else 9
+        bad = [v for v in value if not 1 <= v <= top]
+        if bad:
+            raise fail(f"carbon number {bad[0]} is outside 1-{top}")
+        if len(set(value)) != len(value):
+            raise fail("lists the same carbon twice")
+        if spec.min_items and len(value) < spec.min_items:
+            raise fail(f"needs at least {spec.min_items} carbon number(s)")
+        return tuple(sorted(value))
+    if spec.type == "numbers":
+        if not isinstance(value, list) or not value:
+            raise fail(f"expected a non-empty list of numbers, got {value!r}")
+        out = []
+        for v in value:
+            if isinstance(v, bool) or not isinstance(v, (int, float)) or v != v or v in (float("inf"), float("-inf")):
+                raise fail(f"expected finite numbers, got {v!r}")
+            if spec.minimum is not None and v < spec.minimum:
+                raise fail(f"{v:g} is below the smallest allowed value {spec.minimum:g}")
+            out.append(float(v))
+        return tuple(out)
     raise AssertionError(spec.type)
 
 
@@ -384,6 +461,7 @@ def observation_from_dict(data: Mapping[str, Any]) -> Observation:
         raise ObservationError(oid, "members", "an 'enantiomeric' relation needs exactly two members")
     if kind == "coupling_constant":
         kwargs["pair"] = _proton_pair(kwargs["pair"], oid)
+    _check_residue_kind(kind, kwargs, oid)
     return cls(oid, **kwargs)
 
 
@@ -405,3 +483,30 @@ def _proton_pair(text: str, oid: str) -> str:
         raise ObservationError(oid, "pair", f"{text!r} is not a proton pair such as H1-H2 or H4-H5ax")
     protons = sorted(((int(m[1]), (m[2] or "").lower()) for m in matches if m), key=lambda x: x[0])
     return "-".join(f"H{n}{suffix}" for n, suffix in protons)
+
+
+def _check_residue_kind(kind: str, kwargs: dict[str, Any], oid: str) -> None:
+    """Cross-field checks of the residue kinds (methylation_analysis, smith_degradation, molar_ratio)."""
+    if kind == "methylation_analysis":
+        both = set(kwargs["methyl"]) & set(kwargs["acetyl"])
+        if both:
+            raise ObservationError(oid, "acetyl", f"C-{min(both)} cannot carry both O-methyl and O-acetyl")
+    elif kind == "smith_degradation":
+        product = kwargs["product"]
+        if product.lower() == "none":
+            kwargs["product"] = "none"
+            return
+        from workbench.chem.residue_periodate import product_keys
+        from workbench.errors import NameNotRecognisedError
+
+        try:
+            product_keys(product)
+        except NameNotRecognisedError as err:
+            raise ObservationError(oid, "product", f"{err} Use a polyol or sugar name, or none.") from err
+    elif kind == "molar_ratio":
+        if len(kwargs["amounts"]) != len(kwargs["members"]):
+            raise ObservationError(
+                oid, "amounts", f"gives {len(kwargs['amounts'])} amount(s) for {len(kwargs['members'])} member(s)"
+            )
+        if sum(kwargs["amounts"]) <= 0:
+            raise ObservationError(oid, "amounts", "at least one amount must be above zero")

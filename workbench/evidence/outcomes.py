@@ -105,6 +105,10 @@ def predict(obs: Observation, chain: Chain) -> Any:
     Returns a plain value (word, bool, number or tuple of numbers), None when
     the experiment gives no such product, or :data:`NO_PREDICTION`.
     """
+    if not isinstance(chain, Chain):  # a glycan residue (chem.residue.Residue)
+        from workbench.evidence import residue_outcomes
+
+        return residue_outcomes.predict(obs, chain)
     kind = obs.KIND
     if kind == "carbon_count":
         return chain.carbons
@@ -149,6 +153,12 @@ def outcome_label(kind: str, value: Any) -> str:
     """A short word for a predicted outcome, for tables and planner outcomes."""
     if value is NO_PREDICTION:
         return "no prediction"
+    if kind in ("methylation_analysis", "smith_degradation") or (
+        kind == "periodate" and isinstance(value, tuple) and len(value) == 3
+    ):
+        from workbench.evidence import residue_outcomes
+
+        return residue_outcomes.outcome_label(kind, value)
     if value is None:
         return "no product" if kind in ("aldaric_acid", "alditol") else "does not apply"
     if kind in ("aldaric_acid", "alditol"):
@@ -166,6 +176,10 @@ def outcome_label(kind: str, value: Any) -> str:
 
 def fits(obs: Observation, chain: Chain) -> Verdict:
     """Does the observation fit this candidate? With the reason when it does not."""
+    if not isinstance(chain, Chain):  # a glycan residue (chem.residue.Residue)
+        from workbench.evidence import residue_outcomes
+
+        return residue_outcomes.fits(obs, chain)
     predicted = predict(obs, chain)
     observed = _observed(obs)
     kind = obs.KIND

@@ -39,6 +39,7 @@ from workbench.evidence.costs import Cost, cautions_of, cost_of
 from workbench.evidence.engine import Solution, joint_worlds, solve
 from workbench.evidence.outcomes import NO_PREDICTION, outcome_label, product_key
 from workbench.evidence.project import Project
+from workbench.evidence.residue_outcomes import residue_experiments, residue_labels
 from workbench.evidence.tables import column_key
 
 if TYPE_CHECKING:
@@ -240,6 +241,11 @@ def _experiments_for(
         fields = {"unknown": uid, **params}
         out.append((kind, fields, title, lambda s, k=kind, p=fields: _unary_outcomes(k, p, s)))
 
+    if survivors and not isinstance(survivors[0], Chain):  # glycan residues: predicted directly, no outcome table
+        for kind, title, params in residue_experiments(uid):
+            out.append((kind, {"unknown": uid, **params}, title, residue_labels(kind, params)))
+        return out
+
     unary("carbon_count", f"count the carbons of {uid}")
     unary("molecular_formula", f"molecular formula of {uid} (HRMS)")
     unary("series", f"D/L series of {uid} (degrade to glyceraldehyde)")
@@ -427,8 +433,9 @@ def plan(
                 add(kind, fields, title, uid, [per_survivor[i] for i in rows], unit_names, f"worlds:{uid}")
             else:
                 add(kind, fields, title, uid, list(per_survivor), unit_names, uid)
-        if mine:
+        if mine and not project.unknown(uid).is_residue:
             others = [u for u in project.unknown_ids if u != uid and frozenset((uid, u)) not in done_pairs]
+            others = [u for u in others if not project.unknown(u).is_residue]
             for kind, fields, title, labels, names in _pair_experiments(uid, others, mine):
                 done_pairs.add(frozenset(fields["members"]))
                 add(kind, fields, title, uid, labels, names, f"worlds:{uid}")

@@ -20,6 +20,7 @@ from typing import TYPE_CHECKING, Any
 from workbench.chem.catalogue import DEFAULT_SCOPE, Scope, catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.parse import resolve
+from workbench.chem.residue import DEFAULT_RESIDUE_SCOPE, ResidueScope
 from workbench.errors import NameNotRecognisedError, ObservationError, ProjectError, ScopeError
 from workbench.evidence.observations import Observation, observation_from_dict
 from workbench.files import write_text_atomic
@@ -40,6 +41,7 @@ __all__ = [
 
 FORMAT = "stereosieve-project"
 VERSION = 1
+UNKNOWN_TYPES = ("monosaccharide", "residue")
 _TOP_KEYS = {"format", "version", "title", "unknowns", "observations"}
 
 
@@ -51,12 +53,20 @@ class Unknown:
     label: str = ""
     scope: Scope = DEFAULT_SCOPE
     scope_given: bool = field(default=False, compare=False)
+    type: str = "monosaccharide"  # or "residue": one residue type of a glycan (Contract 5)
+
+    @property
+    def is_residue(self) -> bool:
+        """True for a glycan residue unknown (candidates are :class:`~workbench.chem.residue.Residue`)."""
+        return self.type == "residue"
 
     def to_dict(self) -> dict[str, Any]:
         """Project-file form."""
         out: dict[str, Any] = {"id": self.id}
         if self.label:
             out["label"] = self.label
+        if self.is_residue:
+            out["type"] = self.type
         if self.scope_given or self.scope != DEFAULT_SCOPE:
             out["scope"] = self.scope.to_dict()
         return out
@@ -140,25 +150,30 @@ def _unknown_from(data: Any, index: int, problems: list[str]) -> Unknown | None:
     if not isinstance(uid, str) or not uid.strip():
         problems.append(f"{where}: field 'id' must be a non-empty text, got {uid!r}")
         return None
-    extra = sorted(set(data) - {"id", "label", "scope"})
+    extra = sorted(set(data) - {"id", "label", "scope", "type"})
     if extra:
-        problems.append(f"unknown {uid}: field '{extra[0]}' is not known; use id, label, scope")
+        problems.append(f"unknown {uid}: field '{extra[0]}' is not known; use id, label, type, scope")
+    kind = data.get("type", "monosaccharide")
+    if kind not in UNKNOWN_TYPES:
+        problems.append(f"unknown {uid}: field 'type' must be one of {', '.join(UNKNOWN_TYPES)}, got {kind!r}")
+        kind = "monosaccharide"
     label = data.get("label", "")
     if not isinstance(label, str):
         problems.append(f"unknown {uid}: field 'label' must be text")
         label = ""
-    scope = DEFAULT_SCOPE
+    scope: Scope = DEFAULT_RESIDUE_SCOPE if kind == "residue" else DEFAULT_SCOPE
     if "scope" in data:
         if not isinstance(data["scope"], Mapping):
             problems.append(f"unknown {uid}: field 'scope' must be an object")
         else:
             try:
-                scope = Scope.from_dict(dict(data["scope"]))
+                reader = ResidueScope if kind == "residue" else Scope
+                scope = reader.from_dict(dict(data["scope"]))
             except ScopeError as err:
                 problems.append(f"unknown {uid}: {err}")
     if not catalogue(scope):
         problems.append(f"unknown {uid}: the scope {scope.to_dict()} holds no candidate; widen it")
-    return Unknown(uid.strip(), label, scope, scope_given="scope" in data)
+    return Unknown(uid.strip(), label, scope, scope_given="scope" in data, type=kind)
 
 
 def project_from_dict(data: Any, source: str = "<project>") -> Project:
@@ -214,10 +229,36 @@ def project_from_dict(data: Any, source: str = "<project>") -> Project:
             continue
         seen.add(obs.id)
         problems.extend(_reference_problems(obs, ids, resolved))
+        problems.extend(_residue_problems(obs, {u.id for u in unknowns if u.is_residue}))
         observations.append(obs)
     if problems:
         raise ProjectError(source, problems)
     return Project(title, tuple(unknowns), tuple(observations))
+
+
+# Kinds that only make sense for a residue in a polymer, and kinds that compare free sugars' products.
+RESIDUE_KINDS = ("methylation_analysis", "smith_degradation", "anomer", "ring_form", "molar_ratio")
+_SUGAR_RELATIONS = ("same_product", "chain_extension", "chain_shortening")
+
+
+def _residue_problems(obs: Observation, residues: set[str]) -> list[str]:
+    """Messages for residue kinds on monosaccharide unknowns and sugar relations on residues."""
+    refs = [r for r in obs.references()]
+    if obs.KIND in RESIDUE_KINDS or (obs.KIND == "periodate" and obs.substrate == "residue"):
+        wrong = [r for r in refs if r not in residues]
+        if wrong:
+            what = f"{obs.KIND} with substrate residue" if obs.KIND == "periodate" else obs.KIND
+            return [f"observation {obs.id}: {what} needs residue unknowns ('type': 'residue'); {wrong[0]!r} is not one"]
+    elif obs.KIND == "different" and 0 < sum(r in residues for r in refs) < len(refs):
+        return [f"observation {obs.id}: different mixes residue unknowns with sugars; compare like with like"]
+    elif obs.KIND in _SUGAR_RELATIONS:
+        wrong = [r for r in refs if r in residues]
+        if wrong:
+            return [
+                f"observation {obs.id}: {obs.KIND} compares free sugars; {wrong[0]!r} is a residue unknown "
+                "(record the sugar released by hydrolysis as a monosaccharide unknown instead)"
+            ]
+    return []
 
 
 def _reference_problems(obs: Observation, ids: set[str], cache: dict[str, str | None]) -> list[str]:

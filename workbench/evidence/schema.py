@@ -142,12 +142,19 @@ def _scope_schema() -> dict[str, Any]:
             "items": _TEXT,
             "description": "none, any, uronic, deoxy:N[,M], amino:N, omethyl:N, or several joined with '+'",
         },
+        "sugars": {"type": "array", "items": _TEXT, "description": "sugar names; the candidates are these sugars"},
+    }
+    residue_keys: dict[str, Any] = {  # residue unknowns (Contract 5)
+        "ring": {"type": "array", "minItems": 1, "items": {"enum": ["pyranose", "furanose"]}},
+        "anomer": {"type": "array", "minItems": 1, "items": {"enum": ["alpha", "beta"]}},
+        "max_linked": {"type": "integer", "minimum": 0, "maximum": 4, "description": "residue unknowns only"},
     }
     properties = {}
     for f in dataclasses.fields(Scope):
         if f.name.startswith("_") or not f.init:
             continue
         properties[f.name] = known.get(f.name) or _value_schema(getattr(DEFAULT_SCOPE, f.name), f.type)
+    properties.update(residue_keys)
     return {
         "type": "object",
         "properties": properties,
@@ -167,6 +174,8 @@ def _unknown_schema() -> dict[str, Any]:
             properties["label"] = {"type": "string", "description": "free text"}
         elif f.name == "scope":
             properties["scope"] = {"$ref": "#/$defs/scope"}
+        elif f.name == "type":
+            properties["type"] = {"enum": ["monosaccharide", "residue"], "description": "residue: a glycan residue"}
         else:
             default = f.default if f.default is not dataclasses.MISSING else None
             properties[f.name] = _value_schema(default, f.type)
