@@ -199,7 +199,8 @@ def residue_labels(kind: str, params: dict[str, Any]) -> Callable[[Sequence[Resi
     from workbench.evidence.observations import OBSERVATION_TYPES
     from workbench.evidence.outcomes import outcome_label as label
 
-    probe = OBSERVATION_TYPES[kind]("?", unknown="?", **params)
+    cls: Any = OBSERVATION_TYPES[kind]
+    probe = cls("?", unknown="?", **params)
 
     def labels(residues: Sequence[Residue]) -> list[str]:
         return [label(kind, predict(probe, r)) for r in residues]
