@@ -11,11 +11,14 @@ minimal unsatisfiable subset: drop any one member and the rest can hold).
 
 from __future__ import annotations
 
+import functools
 import itertools
 import logging
-from collections.abc import Iterable
+from collections.abc import Callable, Iterable, Iterator, Mapping, Sequence
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING
+
+import numpy as np
 
 from workbench.chem import reactions
 from workbench.chem.catalogue import catalogue
@@ -25,7 +28,7 @@ from workbench.chem.predictions import predict as record_of
 from workbench.evidence import tables
 from workbench.evidence.network import Binary, components, enumerate_solutions, find_solution, supported_domains
 from workbench.evidence.observations import Observation
-from workbench.evidence.outcomes import fits, product_key
+from workbench.evidence.outcomes import Verdict, fits, product_key
 from workbench.evidence.project import Project
 from workbench.evidence.residue_outcomes import Choices, balance_constraints
 
@@ -52,7 +55,7 @@ class TrailStep:
     status: str
     eliminated: dict[str, tuple[Chain, ...]]
     counts: dict[str, int]
-    reasons: dict[str, dict[Chain, str]] = field(default_factory=dict)
+    reasons: Mapping[str, Mapping[Chain, str]] = field(default_factory=dict)
 
 
 @dataclass(frozen=True)
@@ -227,7 +230,7 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
     return out, fixed
 
 
-def _kept(obs: Observation, chains: list[Chain]) -> list[Chain]:
+def _kept(obs: Observation, chains: Sequence[Chain]) -> list[Chain]:
     """The candidates a unary observation keeps (through the outcome table where one applies)."""
     kept = tables.keep(obs, chains, fits)
     return kept if kept is not None else [c for c in chains if fits(obs, c).fits]
@@ -365,12 +368,75 @@ def _explain_knock_on(project: Project, obs: Observation, uid: str, applied: lis
     return f"{obs.id} removed every partner it could have in {obs.unknown}{via}"
 
 
+def _reason(project: Project, obs: Observation, uid: str, applied: tuple[Observation, ...], chain: Chain) -> str:
+    """Why ``obs`` (after ``applied``) removed ``chain`` from ``uid``."""
+    if obs.UNARY and obs.unknown == uid:
+        verdict = fits(obs, chain)
+        return verdict.reason if not verdict.fits else "no partner survives"
+    if obs.UNARY:
+        return _explain_knock_on(project, obs, uid, list(applied))
+    if uid in obs.references():
+        return _explain_relational(project, obs, uid, chain)
+    return f"{obs.id} removed every partner it could have in a linked unknown"
+
+
+class _Reasons(Mapping[Chain, str]):
+    """Eliminated candidate -> reason, each reason worded on first reading (most are never read)."""
+
+    def __init__(self, chains: tuple[Chain, ...], explain: Callable[[Chain], str]) -> None:
+        self._chains = chains
+        self._keys: frozenset[Chain] | None = None
+        self._explain = explain
+        self._done: dict[Chain, str] = {}
+
+    def __getitem__(self, chain: Chain) -> str:
+        if chain not in self._done:
+            if self._keys is None:
+                self._keys = frozenset(self._chains)
+            if chain not in self._keys:
+                raise KeyError(chain)
+            self._done[chain] = self._explain(chain)
+        return self._done[chain]
+
+    def __iter__(self) -> Iterator[Chain]:
+        return iter(self._chains)
+
+    def __len__(self) -> int:
+        return len(self._chains)
+
+    def __repr__(self) -> str:
+        return f"<{len(self._chains)} reasons, worded when read>"
+
+
+def _gone(before: Sequence[Chain], after: Sequence[Chain]) -> tuple[Chain, ...]:
+    """The candidates of ``before`` not in ``after``, in order (compared as table rows where possible)."""
+    if before and isinstance(before[0], Chain) and all(isinstance(c, Chain) for c in after[:1]):
+        lost = ~np.isin(tables.rows(before), tables.rows(after))
+        return tuple(before[i] for i in np.flatnonzero(lost).tolist())
+    keep = set(after)
+    return tuple(c for c in before if c not in keep)
+
+
+def _flagged(obs: Observation, chains: Sequence[Chain]) -> list[tuple[Chain, Verdict]]:
+    """The survivors of unary ``obs`` that are kept only with a flag, with their verdicts."""
+    if tables.observation_key(obs) is not None and obs.KIND not in tables.ESTIMATED and chains:
+        got, _ = tables.codes(tables.observation_key(obs) or "", chains)
+        uniq, first = np.unique(got, return_index=True)
+        flagged = {code for code, i in zip(uniq.tolist(), first.tolist(), strict=True) if fits(obs, chains[i]).flagged}
+        if not flagged:
+            return []
+        picked: Sequence[Chain] = [c for c, code in zip(chains, got.tolist(), strict=True) if code in flagged]
+    else:
+        picked = chains
+    return [(c, v) for c in picked if (v := fits(obs, c)).flagged]
+
+
 def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
     """Survivors of every unknown, the elimination trail and any conflicts."""
     off = tuple(disabled)
     active = [o for o in project.observations if o.id not in off]
     scope = _scope_domains(project)
-    current: dict[str, list[Chain]] = {k: list(v) for k, v in scope.items()}
+    current: dict[str, tuple[Chain, ...]] = {k: tuple(v) for k, v in scope.items()}
     applied: list[Observation] = []
     trail: list[TrailStep] = []
     flags: dict[str, dict[Chain, list[str]]] = {u: {} for u in project.unknown_ids}
@@ -385,47 +451,36 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
         new_cons: list[Binary] = []
         new_fixed: dict[str, Chain] = {}
         if obs.UNARY:
-            domains[obs.unknown] = _kept(obs, domains[obs.unknown])
+            domains[obs.unknown] = _kept(obs, current[obs.unknown])
         else:
             new_cons, new_fixed = constraints_of(project, obs)
         domains.update(_fixed_domains({**fixed, **new_fixed}))
         result = None if any(not d for d in domains.values()) else supported_domains(domains, constraints + new_cons)
-        trial = None if result is None else {k: v for k, v in result.items() if not k.startswith("=")}
+        trial = None if result is None else {k: tuple(v) for k, v in result.items() if not k.startswith("=")}
         if trial is None:
             trail.append(TrailStep(obs.id, "contradicts", {}, {u: len(current[u]) for u in current}))
             continue
         eliminated: dict[str, tuple[Chain, ...]] = {}
-        reasons: dict[str, dict[Chain, str]] = {}
+        reasons: dict[str, Mapping[Chain, str]] = {}
         for uid in project.unknown_ids:
-            keep = set(trial[uid])
-            gone = tuple(c for c in current[uid] if c not in keep)
+            if len(trial[uid]) == len(current[uid]):
+                continue  # survivors only ever shrink: nothing gone
+            gone = _gone(current[uid], trial[uid])
             if gone:
                 eliminated[uid] = gone
-                reasons[uid] = {}
-                for c in gone:
-                    if obs.UNARY and obs.unknown == uid:
-                        verdict = fits(obs, c)
-                        reasons[uid][c] = verdict.reason if not verdict.fits else "no partner survives"
-                    elif obs.UNARY:
-                        reasons[uid][c] = _explain_knock_on(project, obs, uid, applied)
-                    elif uid in obs.references():
-                        reasons[uid][c] = _explain_relational(project, obs, uid, c)
-                    else:
-                        reasons[uid][c] = f"{obs.id} removed every partner it could have in a linked unknown"
+                reasons[uid] = _Reasons(gone, functools.partial(_reason, project, obs, uid, tuple(applied)))
         if obs.UNARY:
-            for c in trial[obs.unknown]:
-                verdict = fits(obs, c)
-                if verdict.flagged:
-                    flags[obs.unknown].setdefault(c, []).append(f"{obs.id}: {verdict.reason}")
+            for c, verdict in _flagged(obs, trial[obs.unknown]):
+                flags[obs.unknown].setdefault(c, []).append(f"{obs.id}: {verdict.reason}")
         applied.append(obs)
         constraints += new_cons
         fixed.update(new_fixed)
-        current = {k: list(v) for k, v in trial.items()}
+        current = dict(trial)
         trail.append(TrailStep(obs.id, "applied", eliminated, {u: len(current[u]) for u in current}, reasons))
     conflicts: list[tuple[str, ...]] = []
     relief: dict[str, dict[str, tuple[Chain, ...]]] = {}
     clean = all(step.status != "contradicts" for step in trail)
-    final = current if clean else _survivors(project, active)
+    final: Mapping[str, Sequence[Chain]] | None = current if clean else _survivors(project, active)
     if final is None:
         conflicts = _conflict_sets(project, active)
         for oid in sorted({o for c in conflicts for o in c}, key=[o.id for o in active].index):
@@ -433,7 +488,7 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
             alt = _survivors(project, rest)
             if alt is not None:
                 relief[oid] = {u: tuple(alt[u]) for u in project.unknown_ids}
-        final = {u: [] for u in project.unknown_ids}
+        final = {u: () for u in project.unknown_ids}
     return Solution(
         project=project,
         scope_counts={u: len(scope[u]) for u in project.unknown_ids},

@@ -52,12 +52,14 @@ import numpy as np
 from workbench.chem.chain import Chain
 
 __all__ = [
+    "ESTIMATED",
     "SHIPPED",
     "cache_path",
     "codes",
     "column_key",
     "keep",
     "observation_key",
+    "rows",
     "rules_key",
     "save",
     "standard_keys",
@@ -88,7 +90,7 @@ _PROBE_FIELDS: dict[str, tuple[str, ...]] = {
 _FORMAT = 1
 # Kinds whose verdict reads the calibrated estimate (value, standard error, class), not only the
 # predicted value: judged candidate by candidate, not through a column.
-_ESTIMATED = frozenset({"specific_rotation", "anomer_ratio", "coupling_constant"})
+ESTIMATED = frozenset({"specific_rotation", "anomer_ratio", "coupling_constant"})
 
 
 @cache
@@ -247,23 +249,31 @@ class _Store:
         self.columns: dict[str, _Column] = {}
         self.dirty = False
         self.loaded = False
-        self.last: tuple[Sequence[Chain], np.ndarray] | None = None
+        self.recent: dict[int, tuple[Sequence[Chain], np.ndarray]] = {}
         self.lock = threading.RLock()
 
     # rows
     def index(self, chains: Sequence[Chain]) -> np.ndarray:
-        last = self.last
-        if last is not None and last[0] is chains and len(last[1]) == len(chains):
-            return last[1]  # the planner asks about the same survivors many times
-        rows = self.rows
-        out = np.empty(len(chains), dtype=np.int64)
-        for i, c in enumerate(chains):
-            r = rows.get(c)
-            if r is None:
-                r = rows[c] = len(self.chains)
-                self.chains.append(c)
-            out[i] = r
-        self.last = (chains, out)
+        seen = self.recent.get(id(chains))
+        if seen is not None and seen[0] is chains:
+            return seen[1]  # the planner and the engine ask about the same tuples several times
+        # the row is kept on the chain object too (as Chain keeps its hash): catalogue chains are
+        # shared objects, so most look-ups skip hashing and comparing the chain
+        out = np.fromiter((c.__dict__.get("_table_row", -1) for c in chains), dtype=np.int64, count=len(chains))
+        if (out < 0).any():
+            rows = self.rows
+            for i in np.flatnonzero(out < 0).tolist():
+                c = chains[i]
+                r = rows.get(c)
+                if r is None:
+                    r = rows[c] = len(self.chains)
+                    self.chains.append(c)
+                object.__setattr__(c, "_table_row", r)
+                out[i] = r
+        if isinstance(chains, tuple):  # immutable: its rows cannot change (a list could be edited in place)
+            if len(self.recent) >= 8:
+                self.recent.pop(next(iter(self.recent)))
+            self.recent[id(chains)] = (chains, out)  # the tuple is held, so its id stays its own
         return out
 
     def column(self, key: str) -> _Column:
@@ -404,6 +414,12 @@ def codes(key: str, chains: Sequence[Chain]) -> tuple[np.ndarray, list[Any]]:
     return _STORE.codes(key, chains)
 
 
+def rows(chains: Sequence[Chain]) -> np.ndarray:
+    """The row number of every chain (numbered once per process): compare sets of chains as arrays."""
+    with _STORE.lock:
+        return _STORE.index(chains)
+
+
 def values(key: str, chains: Sequence[Chain]) -> list[Any]:
     """The predicted outcome of every chain in column ``key``, in order."""
     got, vals = _STORE.codes(key, chains)
@@ -419,7 +435,7 @@ def keep(obs: Any, chains: Sequence[Chain], verdict: Callable[[Any, Chain], Any]
     observation has no column (the caller then judges every chain).
     """
     key = observation_key(obs)
-    if key is None or obs.KIND in _ESTIMATED or not chains or not all(isinstance(c, Chain) for c in chains[:1]):
+    if key is None or obs.KIND in ESTIMATED or not chains or not all(isinstance(c, Chain) for c in chains[:1]):
         return None
     got, _ = _STORE.codes(key, chains)
     uniq, first = np.unique(got, return_index=True)

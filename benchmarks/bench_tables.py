@@ -1,0 +1,138 @@
+"""Figures for the outcome tables: cold plan against cold solve, a warm evidence change, first open.
+
+Run: ``python benchmarks/bench_tables.py``. Prints, each as a ratio measured in
+this one run:
+
+1. cold ``solve`` and cold ``plan`` over the broadest scope (C3-C9, every
+   modification: 3,828 candidates, one observation), each in a fresh process
+   (``python -m workbench.cli``), with the tables as shipped and the disk cache
+   (a) empty and (b) filled by an earlier run;
+2. a warm evidence change over that scope (switching an observation off and on,
+   then re-solving) against a bare numpy filter over the same columns;
+3. the first open of the whole notebook workbench on that project in a fresh
+   process (every panel built, the plan ranked), in seconds.
+
+Wall-clock seconds on this machine; medians of a few runs.
+"""
+
+from __future__ import annotations
+
+import json
+import os
+import statistics
+import subprocess
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parent.parent
+BROAD = {"carbons": [3, 4, 5, 6, 7, 8, 9], "modifications": ["any"]}
+ONE_OBSERVATION = {
+    "format": "stereosieve-project",
+    "version": 1,
+    "title": "Benchmark (invented): an unknown of unknown chain length",
+    "unknowns": [{"id": "U1", "scope": BROAD}],
+    "observations": [{"id": "E1", "kind": "reducing_test", "unknown": "U1", "result": "positive"}],
+}
+FIVE_OBSERVATIONS = dict(
+    ONE_OBSERVATION,
+    observations=[
+        {"id": "E1", "kind": "reducing_test", "unknown": "U1", "result": "positive"},
+        {"id": "E2", "kind": "bromine_water", "unknown": "U1", "result": "oxidised"},
+        {"id": "E3", "kind": "series", "unknown": "U1", "value": "L"},
+        {"id": "E4", "kind": "alditol", "unknown": "U1", "optically_active": True},
+        {"id": "E5", "kind": "molecular_formula", "unknown": "U1", "value": "C6H12O5"},
+    ],
+)
+
+
+def _run(args: list[str], env: dict[str, str]) -> float:
+    t = time.perf_counter()
+    subprocess.run(
+        [sys.executable, "-m", "workbench.cli", *args],
+        cwd=ROOT,
+        env=env,
+        check=False,
+        stdout=subprocess.DEVNULL,
+        stderr=subprocess.DEVNULL,
+    )
+    return time.perf_counter() - t
+
+
+def cold_commands(path: Path) -> None:
+    with tempfile.TemporaryDirectory() as cache:
+        env = dict(os.environ, STEREOSIEVE_CACHE_DIR=cache)
+        first_solve = _run(["solve", str(path)], env)
+        first_plan = _run(["plan", str(path)], env)  # first plan ever on this machine: fills the cache
+        solves = [_run(["solve", str(path)], env) for _ in range(3)]
+        plans = [_run(["plan", str(path)], env) for _ in range(3)]
+    s, p = statistics.median(solves), statistics.median(plans)
+    print("1. cold commands over the broadest scope (3,828 candidates), fresh processes")
+    print(
+        f"   empty disk cache:  solve {first_solve:.2f} s, plan {first_plan:.2f} s, ratio {first_plan / first_solve:.1f}x"
+    )
+    print(f"   filled disk cache: solve {s:.2f} s, plan {p:.2f} s, ratio {p / s:.1f}x (median of 3)")
+
+
+def warm_change() -> None:
+    import numpy as np
+
+    from workbench.evidence import engine, project_from_dict, tables
+
+    project = project_from_dict(FIVE_OBSERVATIONS)
+    engine.solve(project)  # warm: columns and names filled
+    times = []
+    for i in range(11):
+        t = time.perf_counter()
+        engine.solve(project, disabled=("E2",) if i % 2 == 0 else ())
+        times.append(time.perf_counter() - t)
+    chains = list(engine._scope_domains(project)["U1"])
+    observations = list(project.observations)
+    columns = [tables.codes(tables.observation_key(o), chains)[0] for o in observations]
+    ok = []
+    for obs in observations:
+        got, _ = tables.codes(tables.observation_key(obs), chains)
+        kept = set(engine._kept(obs, chains))
+        ok.append(np.unique([g for g, c in zip(got, chains, strict=True) if c in kept]))
+    bare = []
+    for _ in range(101):
+        t = time.perf_counter()
+        mask = np.ones(len(chains), dtype=bool)
+        for col, good in zip(columns, ok, strict=True):
+            mask &= np.isin(col, good)
+        bare.append(time.perf_counter() - t)
+    w, b = statistics.median(times), statistics.median(bare)
+    print("2. warm evidence change over the broadest scope (five observations, E2 switched off and on)")
+    print(
+        f"   engine.solve {1000 * w:.2f} ms; bare numpy filter over the same columns {1000 * b:.3f} ms;"
+        f" difference {1000 * (w - b):.2f} ms ({int(mask.sum())} left)"
+    )
+
+
+def first_open(path: Path) -> None:
+    code = (
+        "import time; t = time.perf_counter()\n"
+        "from workbench.ui.app import Workbench\n"
+        f"bench = Workbench.open({str(path)!r})\n"
+        "print(time.perf_counter() - t)\n"
+    )
+    runs = []
+    for _ in range(3):
+        out = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, check=True)
+        runs.append(float(out.stdout.strip().splitlines()[-1]))
+    print("3. first open of the whole workbench on the broadest-scope project, fresh process (imports included)")
+    print(f"   {statistics.median(runs):.2f} s (median of 3)")
+
+
+def main() -> None:
+    with tempfile.TemporaryDirectory() as tmp:
+        path = Path(tmp) / "broad.json"
+        path.write_text(json.dumps(ONE_OBSERVATION))
+        cold_commands(path)
+        warm_change()
+        first_open(path)
+
+
+if __name__ == "__main__":
+    main()
