@@ -1,4 +1,6 @@
-"""The core imports no UI library, and imports quickly (checked in a fresh interpreter).
+"""The core imports no UI library (checked in a fresh interpreter).
+
+How long the import takes is measured by ``benchmarks/bench_import.py``, not asserted here.
 
 The layering rule is common practice (STYLE.md principle 1, after datamol); no chemistry is checked here.
 """
@@ -12,21 +14,13 @@ from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
 UI_LIBRARIES = ("ipywidgets", "IPython", "py3Dmol", "matplotlib")
-IMPORT_BUDGET_S = 5.0  # generous: RDKit alone takes about a second on a slow machine
 
 _PROBE = """
-import importlib, importlib.util, json, sys, time
+import importlib, json, sys
 wanted = {wanted!r}
-start = time.perf_counter()
-imported = []
 for name in wanted:
-    if name == "workbench.conformers" and importlib.util.find_spec(name) is None:
-        continue
     importlib.import_module(name)
-    imported.append(name)
-seconds = time.perf_counter() - start
-print(json.dumps({{"imported": imported, "seconds": seconds,
-                  "ui": [m for m in {ui!r} if m in sys.modules]}}))
+print(json.dumps({{"imported": wanted, "ui": [m for m in {ui!r} if m in sys.modules]}}))
 """
 
 
@@ -40,14 +34,11 @@ def _probe(modules: list[str]) -> dict:
 
 def test_core_packages_import_no_ui_library():
     result = _probe(["workbench.chem", "workbench.evidence", "workbench.conformers"])
-    print(f"\ncore import time: {result['seconds']:.3f} s for {', '.join(result['imported'])}")
     assert result["ui"] == []
-    assert result["seconds"] < IMPORT_BUDGET_S
 
 
 def test_display_layer_report_and_lab_preparation_import_no_ui_library():
     result = _probe(["workbench.display", "workbench.report", "workbench.ui.notebook", "workbench.cli"])
-    print(f"\ndisplay/report/lab import time: {result['seconds']:.3f} s")
     assert result["ui"] == []
 
 
