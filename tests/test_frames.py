@@ -33,6 +33,7 @@ from workbench.frames import (
     PLAN_COLUMNS,
     SURVIVOR_COLUMNS,
     TRAIL_COLUMNS,
+    UNKNOWN_COLUMNS,
     conflicts_frame,
     curve_frame,
     narrowing_frame,
@@ -41,6 +42,7 @@ from workbench.frames import (
     predictions_frame,
     survivors_frame,
     trail_frame,
+    unknowns_frame,
 )
 from workbench.report_text import solution_json
 
@@ -69,6 +71,36 @@ def test_survivors_frame_has_the_documented_columns_and_the_solution_rows(two_le
     listed = solution_json(two_left)["unknowns"]["S1"]["survivors"]
     assert frame[["name", "systematic_name", "smiles", "inchikey"]].to_dict("records") == listed
     assert set(frame["unknown"]) == {"S1"}
+
+
+def test_survivors_frame_rows_are_those_of_the_csv_export(two_left):
+    from io import StringIO
+
+    from workbench.export import CSV_COLUMNS, export_text
+
+    frame = survivors_frame(two_left)
+    exported = pd.read_csv(StringIO(export_text(two_left, "csv")))
+    assert tuple(frame.columns[: len(CSV_COLUMNS)]) == CSV_COLUMNS
+    assert frame[list(CSV_COLUMNS)].to_dict("records") == exported.to_dict("records")
+
+
+def test_survivor_probabilities_sum_to_one_per_unknown():
+    solution = solve(load_project(SAMPLES / "rare_pentose_epimerisation.json").without("E6", "E7"))
+    frame = survivors_frame(solution)
+    totals = frame.groupby("unknown")["probability"].sum()
+    assert totals.round(9).eq(1.0).all() and set(totals.index) == {"P", "H1", "H2"}
+    assert frame["probability"].between(0, 1).all()
+
+
+def test_unknowns_frame_counts(two_left):
+    frame = unknowns_frame(two_left)
+    assert tuple(frame.columns) == UNKNOWN_COLUMNS
+    # Default scope C3-C7, both series: aldoses 2 + 4 + 8 + 16 + 32 = 62 (2^(n-2) stereoisomers), 2-ketoses
+    # 1 + 2 + 4 + 8 + 16 = 31 (2^(n-3)); 93 in all. Without E6, D-allose and D-galactose are left (above).
+    assert frame.to_dict("records") == [
+        {"unknown": "S1", "label": two_left.project.unknown("S1").label, "scope_count": 93, "count": 2}
+    ]
+    assert two_left.unknowns_frame().equals(frame)
 
 
 def test_survivors_frame_identity_agrees_with_rdkit(two_left):
@@ -289,6 +321,7 @@ def test_every_column_is_documented_in_the_contributor_guide():
     section = guide[guide.index("### Tables") :]
     for columns in (
         SURVIVOR_COLUMNS,
+        UNKNOWN_COLUMNS,
         TRAIL_COLUMNS,
         CONFLICT_COLUMNS,
         OBSERVATION_COLUMNS,

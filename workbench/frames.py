@@ -6,6 +6,7 @@ Pure functions from the core result objects to :class:`pandas.DataFrame`
 columns may be added, never renamed or removed.
 
 - :func:`survivors_frame`: the survivors of every unknown of a solution;
+- :func:`unknowns_frame`: one summary row per unknown;
 - :func:`trail_frame`: every elimination, with the observation and the reason;
 - :func:`narrowing_frame`: candidates left per unknown after each step;
 - :func:`conflicts_frame`: the minimal conflicting sets of observations;
@@ -42,6 +43,7 @@ if TYPE_CHECKING:
 __all__ = [
     "IDENTITY_COLUMNS",
     "SURVIVOR_COLUMNS",
+    "UNKNOWN_COLUMNS",
     "TRAIL_COLUMNS",
     "CONFLICT_COLUMNS",
     "OBSERVATION_COLUMNS",
@@ -49,6 +51,7 @@ __all__ = [
     "CURVE_COLUMNS",
     "EXPERIMENT_KINDS",
     "survivors_frame",
+    "unknowns_frame",
     "trail_frame",
     "narrowing_frame",
     "conflicts_frame",
@@ -59,7 +62,8 @@ __all__ = [
 ]
 
 IDENTITY_COLUMNS = ("name", "systematic_name", "smiles", "inchikey")
-SURVIVOR_COLUMNS = ("unknown", *IDENTITY_COLUMNS, "flagged", "flags")
+SURVIVOR_COLUMNS = ("unknown", *IDENTITY_COLUMNS, "probability", "flagged", "flags")
+UNKNOWN_COLUMNS = ("unknown", "label", "scope_count", "count")
 TRAIL_COLUMNS = ("step", "observation", "kind", "status", "unknown", "eliminated", "reason")
 CONFLICT_COLUMNS = ("conflict", "observation", "kind", "description")
 OBSERVATION_COLUMNS = ("observation", "kind", "references", "description", "recorded", "by", "note")
@@ -114,25 +118,48 @@ def _frame(rows: list[dict[str, Any]], columns: Sequence[str]) -> pd.DataFrame:
 
 # ------------------------------------------------------------------ solutions
 def survivors_frame(solution: Solution) -> pd.DataFrame:
-    """One row per survivor of every unknown, unknowns in project order (columns :data:`SURVIVOR_COLUMNS`).
+    """One row per survivor of every unknown (columns :data:`SURVIVOR_COLUMNS`).
 
-    ``flags`` joins the survivor's flags with ``"; "`` (empty when none);
-    ``flagged`` is True when there is any.
+    Unknowns in project order, the most probable survivor first within each,
+    as ``stereosieve export --format csv`` lists them (its columns are the
+    first six here). ``probability`` is the survivor's share of belief
+    (:func:`workbench.evidence.rivals.survivor_probabilities`: the posterior
+    where the solution carries one, else a uniform share); ``flags`` joins the
+    survivor's flags with ``"; "`` (empty when none); ``flagged`` is True
+    when there is any.
     """
+    from workbench.evidence.rivals import survivor_probabilities
+
     rows = []
     for uid in solution.project.unknown_ids:
         flags = solution.flags.get(uid, {})
-        for chain in solution.survivors[uid]:
+        shares = survivor_probabilities(solution, uid)
+        for chain in sorted(solution.survivors[uid], key=lambda c: -shares[c]):
             notes = flags.get(chain, ())
             rows.append(
                 {
                     "unknown": uid,
                     **dict(zip(IDENTITY_COLUMNS, _identity(chain), strict=True)),
+                    "probability": shares[chain],
                     "flagged": bool(notes),
                     "flags": "; ".join(notes),
                 }
             )
     return _frame(rows, SURVIVOR_COLUMNS)
+
+
+def unknowns_frame(solution: Solution) -> pd.DataFrame:
+    """One row per unknown in project order (columns :data:`UNKNOWN_COLUMNS`): its label, scope size and survivors."""
+    rows = [
+        {
+            "unknown": uid,
+            "label": solution.project.unknown(uid).label,
+            "scope_count": solution.scope_counts[uid],
+            "count": len(solution.survivors[uid]),
+        }
+        for uid in solution.project.unknown_ids
+    ]
+    return _frame(rows, UNKNOWN_COLUMNS)
 
 
 def trail_frame(solution: Solution) -> pd.DataFrame:

@@ -103,6 +103,12 @@ class Solution:
 
         return survivors_frame(self)
 
+    def unknowns_frame(self) -> pd.DataFrame:
+        """One summary row per unknown (:func:`workbench.frames.unknowns_frame`)."""
+        from workbench.frames import unknowns_frame
+
+        return unknowns_frame(self)
+
     def trail_frame(self) -> pd.DataFrame:
         """Every elimination with its observation and reason (:func:`workbench.frames.trail_frame`)."""
         from workbench.frames import trail_frame
