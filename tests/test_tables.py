@@ -141,3 +141,35 @@ def test_a_solve_through_the_tables_matches_judging_every_candidate():
     for obs in project.observations:
         expected = [c for c in expected if outcomes.fits(obs, c).fits]
     assert list(solve(project).survivors["U1"]) == expected
+
+
+RESIDUE_EVIDENCE = [
+    {"kind": "methylation_analysis", "methyl": [2, 3, 6], "acetyl": [1, 4, 5]},
+    {"kind": "smith_degradation", "product": "glycerol"},
+    {"kind": "anomer", "value": "beta"},
+    {"kind": "periodate", "substrate": "residue", "periodate": 1, "formic_acid": 0, "formaldehyde": 0},
+]
+
+
+@pytest.mark.parametrize("fields", RESIDUE_EVIDENCE, ids=lambda f: f["kind"])
+def test_glycan_residues_use_the_same_tables_and_keep_what_fits_keeps(fields):
+    from workbench.chem.residue import ResidueScope, residue_catalogue
+
+    residues = list(residue_catalogue(ResidueScope(carbons=(6,), series=("D",), modifications=("none",))))
+    obs = observation_from_dict({"id": "E1", "unknown": "R1", **fields})
+    kept = tables.keep(obs, residues, outcomes.fits)
+    assert kept == [r for r in residues if outcomes.fits(obs, r).fits]
+
+
+def test_residue_rows_survive_a_table_file(tmp_path):
+    from workbench.chem.residue import ResidueScope, residue_catalogue
+
+    residues = list(residue_catalogue(ResidueScope(carbons=(5,), series=("L",), modifications=("none",))))
+    key = tables.column_key("methylation_analysis")
+    tables.warm(residues, [key])
+    data = tables._read(tables.save(tmp_path / "r.pkl.gz", [key]))
+    back = [tables._unspec(spec) for spec in data["chains"]]
+    codes, vals = data["columns"][key]
+    by_residue = {r: vals[c] for r, c in zip(back, codes, strict=True) if c >= 0}
+    for r in residues:
+        assert by_residue[r] == outcomes.predict(tables._probe(key), r)

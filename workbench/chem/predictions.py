@@ -250,7 +250,7 @@ class Prediction:
         return tuple((key, value.reason) for key, value in raw if isinstance(value, NotApplicable))
 
     def uncertain(self, reaction: str) -> str | None:
-        """"uncertain, because ..." where the chemistry of ``reaction`` is doubtful (no prediction), else None.
+        """ "uncertain, because ..." where the chemistry of ``reaction`` is doubtful (no prediction), else None.
 
         ``reaction`` is ``aldaric_acid``, ``osazone`` or ``chain_shortening``
         (the reactions with doubtful cases, :class:`workbench.chem.reactions.Uncertain`).

@@ -416,11 +416,10 @@ class _Reasons(Mapping[Chain, str]):
 
 def _gone(before: Sequence[Chain], after: Sequence[Chain]) -> tuple[Chain, ...]:
     """The candidates of ``before`` not in ``after``, in order (compared as table rows where possible)."""
-    if before and isinstance(before[0], Chain) and all(isinstance(c, Chain) for c in after[:1]):
-        lost = ~np.isin(tables.rows(before), tables.rows(after))
-        return tuple(before[i] for i in np.flatnonzero(lost).tolist())
-    keep = set(after)
-    return tuple(c for c in before if c not in keep)
+    if not before:
+        return ()
+    lost = ~np.isin(tables.rows(before), tables.rows(after))
+    return tuple(before[i] for i in np.flatnonzero(lost).tolist())
 
 
 def _flagged(obs: Observation, chains: Sequence[Chain]) -> list[tuple[Chain, Verdict]]:

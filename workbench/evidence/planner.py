@@ -39,7 +39,7 @@ from workbench.evidence.costs import Cost, cautions_of, cost_of
 from workbench.evidence.engine import Solution, joint_worlds, solve
 from workbench.evidence.outcomes import NO_PREDICTION, outcome_label, product_key
 from workbench.evidence.project import Project
-from workbench.evidence.residue_outcomes import residue_experiments, residue_labels
+from workbench.evidence.residue_outcomes import residue_experiments
 from workbench.evidence.tables import column_key
 
 if TYPE_CHECKING:
@@ -241,9 +241,10 @@ def _experiments_for(
         fields = {"unknown": uid, **params}
         out.append((kind, fields, title, lambda s, k=kind, p=fields: _unary_outcomes(k, p, s)))
 
-    if survivors and not isinstance(survivors[0], Chain):  # glycan residues: predicted directly, no outcome table
+    if survivors and not isinstance(survivors[0], Chain):  # glycan residues: their own experiments, same tables
         for kind, title, params in residue_experiments(uid):
-            out.append((kind, {"unknown": uid, **params}, title, residue_labels(kind, params)))
+            fields = {"unknown": uid, **params}
+            out.append((kind, fields, title, lambda s, k=kind, p=fields: _unary_outcomes(k, p, s)))
         return out
 
     unary("carbon_count", f"count the carbons of {uid}")

@@ -23,7 +23,7 @@ solver treats exactly).
 from __future__ import annotations
 
 import itertools
-from collections.abc import Callable, Sequence
+from collections.abc import Callable
 from typing import Any
 
 from workbench.chem.methylation import alditol_acetate
@@ -41,7 +41,6 @@ __all__ = [
     "balance_constraints",
     "feasible_counts",
     "residue_experiments",
-    "residue_labels",
 ]
 
 RESIDUE_KINDS = ("methylation_analysis", "smith_degradation", "anomer", "ring_form")
@@ -192,17 +191,3 @@ def residue_experiments(uid: str) -> list[tuple[str, str, dict[str, Any]]]:
         ("carbon_count", f"carbons of the sugar of {uid} (after hydrolysis)", {}),
         ("series", f"D/L series of the sugar of {uid} (after hydrolysis)", {}),
     ]
-
-
-def residue_labels(kind: str, params: dict[str, Any]) -> Callable[[Sequence[Residue]], list[str]]:
-    """The planner's outcome function: one outcome label per residue, in order."""
-    from workbench.evidence.observations import OBSERVATION_TYPES
-    from workbench.evidence.outcomes import outcome_label as label
-
-    cls: Any = OBSERVATION_TYPES[kind]
-    probe = cls("?", unknown="?", **params)
-
-    def labels(residues: Sequence[Residue]) -> list[str]:
-        return [label(kind, predict(probe, r)) for r in residues]
-
-    return labels

@@ -87,7 +87,7 @@ _PROBE_FIELDS: dict[str, tuple[str, ...]] = {
     "periodate": ("substrate",),
     "coupling_constant": ("form", "pair"),
 }
-_FORMAT = 1
+_FORMAT = 2
 # Kinds whose verdict reads the calibrated estimate (value, standard error, class), not only the
 # predicted value: judged candidate by candidate, not through a column.
 ESTIMATED = frozenset({"specific_rotation", "anomer_ratio", "coupling_constant"})
@@ -317,7 +317,7 @@ class _Store:
                     return
 
     def _merge(self, data: dict) -> None:
-        chains = [Chain(tuple(g), tuple(s)) for g, s in data["chains"]]
+        chains = [_unspec(spec) for spec in data["chains"]]
         rows = self.index(chains)
         for key, (codes, vals) in data["columns"].items():
             col = self.column(key)
@@ -338,13 +338,29 @@ class _Store:
             return {
                 "format": _FORMAT,
                 "key": rules_key(),
-                "chains": [(c.groups, c.sides) for c in self.chains],
+                "chains": [_spec(c) for c in self.chains],
                 "columns": {
                     k: (self.column(k).codes[:n].copy(), list(self.columns[k].values))
                     for k in wanted
                     if k in self.columns
                 },
             }
+
+
+def _spec(candidate: Any) -> tuple:
+    """A candidate as plain tuples for a table file: a chain, or a glycan residue on its chain."""
+    if isinstance(candidate, Chain):
+        return ("chain", candidate.groups, candidate.sides)
+    chain = candidate.chain
+    return ("residue", chain.groups, chain.sides, candidate.ring, candidate.anomer, tuple(candidate.linked))
+
+
+def _unspec(spec: tuple) -> Any:
+    if spec[0] == "chain":
+        return Chain(tuple(spec[1]), tuple(spec[2]))
+    from workbench.chem.residue import Residue
+
+    return Residue(Chain(tuple(spec[1]), tuple(spec[2])), spec[3], spec[4], tuple(spec[5]))
 
 
 def _read(path: Path) -> dict | None:
@@ -435,7 +451,7 @@ def keep(obs: Any, chains: Sequence[Chain], verdict: Callable[[Any, Chain], Any]
     observation has no column (the caller then judges every chain).
     """
     key = observation_key(obs)
-    if key is None or obs.KIND in ESTIMATED or not chains or not all(isinstance(c, Chain) for c in chains[:1]):
+    if key is None or obs.KIND in ESTIMATED or not chains:
         return None
     got, _ = _STORE.codes(key, chains)
     uniq, first = np.unique(got, return_index=True)
