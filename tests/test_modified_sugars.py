@@ -232,3 +232,21 @@ def test_kiliani_relations_still_hold_for_uronic_acids():
 
     for product in extend(resolve("D-arabinose")):
         assert extension_parent(product) == resolve("D-arabinose")
+
+
+@pytest.mark.parametrize(
+    "text",
+    [
+        "Kdo",  # 3-deoxy-D-manno-oct-2-ulosonic acid (IUPAC-IUBMB 1996, 2-Carb-38)
+        "Neu5Ac",
+        "3-deoxy-D-manno-oct-2-ulosonic acid",
+        "OC(=O)C(=O)C[C@@H](O)[C@@H](O)[C@H](O)[C@H](O)CO",  # a Kdo open chain written by hand
+    ],
+)
+def test_ulosonic_acids_are_refused_with_the_reason(text):
+    # not modelled: a 2-ketose with a carboxyl at C-1 falls outside the ketose rules (design decision)
+    from workbench.errors import NameNotRecognisedError
+
+    with pytest.raises(NameNotRecognisedError) as err:
+        resolve(text)
+    assert "ulosonic" in str(err.value)

@@ -17,7 +17,7 @@ from rdkit.Chem import rdCIPLabeler
 from workbench.chem.chain import LEFT, RIGHT, STEREO_GROUPS, Chain
 from workbench.chem.names import display_name, from_name, ring_name
 from workbench.chem.smiles import RingForm, canonical, quiet_rdkit, ring_forms, to_smiles
-from workbench.chem.symbols import from_symbol
+from workbench.chem.symbols import ULOSONIC_REASON, from_symbol
 from workbench.errors import NameNotRecognisedError, StructureError
 
 __all__ = ["Compound", "from_smiles", "read_compound", "resolve", "open_ring"]
@@ -164,6 +164,8 @@ def from_smiles(smiles: str) -> Chain:
     all_right = Chain(tuple(groups), tuple(RIGHT if i in stereo else None for i in range(len(groups))))
     if not all_right.is_sugar:
         raise StructureError(f"{all_right.pattern} is not an aldose or 2-ketose")
+    if all_right.carbonyl == "ketose" and groups[0] == "COOH":
+        raise StructureError(ULOSONIC_REASON)
     target = canonical(Chem.MolToSmiles(mol))
     ref = _cip(Chem.MolFromSmiles(to_smiles(all_right)))
     ref_mol = Chem.MolFromSmiles(to_smiles(all_right))
@@ -230,8 +232,9 @@ def read_compound(text: str) -> Compound:
     except NameNotRecognisedError as name_error:
         try:
             return Compound(from_symbol(text))  # IUPAC symbols: GlcNAc, L-Rha, LDmanHep
-        except NameNotRecognisedError:
-            pass
+        except NameNotRecognisedError as symbol_error:
+            if "ulosonic" in symbol_error.reason or "ulosonic" in text:
+                raise NameNotRecognisedError(text, ULOSONIC_REASON) from symbol_error
         if any(ch in text for ch in "=@[]()") or text.strip().isupper():
             try:
                 chain = from_smiles(text.strip())

@@ -26,7 +26,7 @@ from workbench.chem.chain import Chain
 from workbench.chem.names import configurational_prefix, from_name, systematic_name
 from workbench.errors import NameNotRecognisedError
 
-__all__ = ["SYMBOLS", "from_symbol", "symbol", "known_symbols"]
+__all__ = ["SYMBOLS", "ULOSONIC", "from_symbol", "symbol", "known_symbols"]
 
 # symbol -> trivial name ({s} marks where the series goes; names without {s}
 # take the series in front). IUPAC-IUBMB 1996, 2-Carb-38 [from memory].
@@ -97,6 +97,19 @@ _SHORT_PREFIX = {
     "talo": "tal",
 }
 _LONG_PREFIX = {v: k for k, v in _SHORT_PREFIX.items()}
+# 3-Deoxy-2-ulosonic acids: C-1 is a carboxyl on a 2-ketose, which the ketose rules of this
+# model (reducing test, osazone, Seliwanoff test, Angyal's scheme) do not cover.
+ULOSONIC = {
+    "Kdo": "3-deoxy-D-manno-oct-2-ulosonic acid",
+    "Kdn": "3-deoxy-D-glycero-D-galacto-non-2-ulosonic acid",
+    "Neu5Ac": "5-acetamido-3,5-dideoxy-D-glycero-D-galacto-non-2-ulosonic acid",
+    "Neu5Gc": "3,5-dideoxy-5-glycolamido-D-glycero-D-galacto-non-2-ulosonic acid",
+}
+ULOSONIC_REASON = (
+    "3-deoxy-2-ulosonic acids (Kdo, Kdn, Neu5Ac) are not modelled: their C-1 is a carboxyl on a 2-ketose, "
+    "and the ketose rules here (reducing test, osazone, Seliwanoff test, Angyal's anomer scheme) assume a "
+    "CH2OH at C-1"
+)
 _HEPTOSE = re.compile(r"^(?P<outer>[DL])-?gro-(?P<inner>[DL])-?(?P<cfg>[a-z]{3})Hep$")
 _COMPACT_HEPTOSE = re.compile(r"^(?P<outer>[DL])(?P<inner>[DL])(?P<cfg>[a-z]{3})Hep$")
 _PAIR_HEPTOSE = re.compile(r"^(?P<outer>[DL]),(?P<inner>[DL])-Hep$")  # L,D-Hep = L-glycero-D-manno-heptose
@@ -127,6 +140,9 @@ def from_symbol(text: str) -> Chain:
     m = _PAIR_HEPTOSE.match(t)
     if m:  # the lipopolysaccharide shorthand: L,D-Hep and D,D-Hep are manno-heptoses
         return _heptose(m["outer"], m["inner"], "man", text)
+    bare = re.sub(r"^[DL]-|[pf]$", "", t)
+    if bare in ULOSONIC:
+        raise NameNotRecognisedError(text, f"{bare} is {ULOSONIC[bare]}; {ULOSONIC_REASON}")
     m = re.match(r"^(?:(?P<series>[DL])-)?(?P<sym>[A-Za-z]+?)(?P<ring>[pf])?$", t)
     if m is None or m["sym"] not in SYMBOLS:
         raise NameNotRecognisedError(text, "not an IUPAC monosaccharide symbol", ())

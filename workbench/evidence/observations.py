@@ -150,7 +150,16 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
         _kind(
             "series",
             "configuration at the highest-numbered stereocentre",
-            (_UNKNOWN, FieldSpec("value", "choice", "D or L", choices=("D", "L"))),
+            (
+                _UNKNOWN,
+                FieldSpec(
+                    "value",
+                    "choice",
+                    "D or L: the side of the OH on the highest-numbered stereocentre (IUPAC-IUBMB 2-Carb-4.2), "
+                    "so L-glycero-D-manno-heptose is L",
+                    choices=("D", "L"),
+                ),
+            ),
         ),
         _kind(
             "bromine_water",
