@@ -31,6 +31,7 @@ from workbench.frames import (
     IDENTITY_COLUMNS,
     OBSERVATION_COLUMNS,
     PLAN_COLUMNS,
+    RESIDUE_COLUMNS,
     SURVIVOR_COLUMNS,
     TRAIL_COLUMNS,
     UNKNOWN_COLUMNS,
@@ -40,6 +41,7 @@ from workbench.frames import (
     observations_frame,
     plan_frame,
     predictions_frame,
+    residues_frame,
     survivors_frame,
     trail_frame,
     unknowns_frame,
@@ -129,6 +131,75 @@ def test_survivors_frame_flags_candidates_without_a_published_rotation():
         assert frame.loc[name, "flagged"] and "E1" in frame.loc[name, "flags"]
     # D-glucose +52.7 and D-mannose +14.6 (Bruice; handbook table) lie far outside 80.2 +/- 3.
     assert "D-glucose" not in frame.index and "D-mannose" not in frame.index
+
+
+# ------------------------------------------------------------------ glycan residues
+@pytest.fixture(scope="module")
+def four_linked():
+    observations = [
+        {"id": "E1", "kind": "methylation_analysis", "unknown": "R1", "methyl": [2, 3, 6], "acetyl": [1, 4, 5]},
+        {"id": "E2", "kind": "anomer", "unknown": "R1", "value": "alpha"},
+        {
+            "id": "E3",
+            "kind": "periodate",
+            "unknown": "R1",
+            "substrate": "residue",
+            "periodate": 1.0,
+            "formic_acid": 0.0,
+            "formaldehyde": 0.0,
+        },
+        {"id": "E4", "kind": "smith_degradation", "unknown": "R1", "product": "erythritol"},
+    ]
+    project = project_from_dict(
+        {
+            "format": "stereosieve-project",
+            "version": 1,
+            "title": "one glucose residue",
+            "unknowns": [{"id": "R1", "type": "residue", "scope": {"sugars": ["D-glucose"]}}],
+            "observations": observations,
+        }
+    )
+    return solve(project)
+
+
+def test_residues_frame_lists_the_surviving_residue_candidates(four_linked):
+    frame = residues_frame(four_linked)
+    assert tuple(frame.columns) == RESIDUE_COLUMNS
+    # A 4-linked pyranose and a 5-linked furanose give the same partially methylated alditol acetate, the same
+    # periodate uptake (1 IO4-, no HCOOH) and the same Smith fragment, erythritol (REFERENCE_VALUES, glycan
+    # residues; Bjorndal et al. 1970; Goldstein, Hay, Lewis and Smith 1965 [memory]).
+    rows = frame.set_index("name")
+    assert sorted(rows.index) == ["->4)-alpha-D-Glcp-(1->", "->5)-alpha-D-Glcf-(1->"]
+    assert rows.loc["->4)-alpha-D-Glcp-(1->", ["ring", "linked_positions"]].tolist() == ["pyranose", "4"]
+    assert rows.loc["->5)-alpha-D-Glcf-(1->", ["ring", "linked_positions"]].tolist() == ["furanose", "5"]
+    assert set(frame["sugar"]) == {"D-glucose"} and set(frame["anomer"]) == {"alpha"}
+    # O-acetyl at C-1, C-5 (ring oxygen) and C-4 (linked); O-methyl at 2, 3, 6 (the same rules)
+    (acetate,) = set(frame["alditol_acetate"])
+    assert "1,4,5-tri-O-acetyl" in acetate and "2,3,6-tri-O-methyl" in acetate and "glucitol" in acetate
+    assert frame["probability"].sum() == pytest.approx(1.0)
+    assert four_linked.residues_frame().equals(frame)
+
+
+def test_residue_survivors_are_named_as_solve_json_names_them(four_linked):
+    frame = survivors_frame(four_linked)
+    listed = solution_json(four_linked)["unknowns"]["R1"]["survivors"]
+    by_name = {s["name"]: s for s in listed}
+    for row in frame.itertuples():
+        expected = by_name[row.name]
+        assert (row.systematic_name, row.smiles, row.inchikey) == (
+            expected["systematic_name"],
+            expected["smiles"],
+            expected["inchikey"],
+        )
+        assert "*" in row.smiles  # the neighbouring residues
+    # The InChIKey is that of the sugar released, open-chain D-glucose (SMILES as DESIGN.md writes it; RDKit).
+    glucose = Chem.MolToInchiKey(Chem.MolFromSmiles("O=C[C@H](O)[C@@H](O)[C@H](O)[C@H](O)CO"))
+    assert set(frame["inchikey"]) == {glucose}
+
+
+def test_residues_frame_is_empty_without_residue_unknowns(two_left):
+    frame = residues_frame(two_left)
+    assert frame.empty and tuple(frame.columns) == RESIDUE_COLUMNS
 
 
 # ------------------------------------------------------------------ trail, narrowing, conflicts, ledger
@@ -322,6 +393,7 @@ def test_every_column_is_documented_in_the_contributor_guide():
     for columns in (
         SURVIVOR_COLUMNS,
         UNKNOWN_COLUMNS,
+        RESIDUE_COLUMNS,
         TRAIL_COLUMNS,
         CONFLICT_COLUMNS,
         OBSERVATION_COLUMNS,

@@ -7,6 +7,7 @@ columns may be added, never renamed or removed.
 
 - :func:`survivors_frame`: the survivors of every unknown of a solution;
 - :func:`unknowns_frame`: one summary row per unknown;
+- :func:`residues_frame`: the surviving candidates of glycan residue unknowns;
 - :func:`trail_frame`: every elimination, with the observation and the reason;
 - :func:`narrowing_frame`: candidates left per unknown after each step;
 - :func:`conflicts_frame`: the minimal conflicting sets of observations;
@@ -44,6 +45,7 @@ __all__ = [
     "IDENTITY_COLUMNS",
     "SURVIVOR_COLUMNS",
     "UNKNOWN_COLUMNS",
+    "RESIDUE_COLUMNS",
     "TRAIL_COLUMNS",
     "CONFLICT_COLUMNS",
     "OBSERVATION_COLUMNS",
@@ -52,6 +54,7 @@ __all__ = [
     "EXPERIMENT_KINDS",
     "survivors_frame",
     "unknowns_frame",
+    "residues_frame",
     "trail_frame",
     "narrowing_frame",
     "conflicts_frame",
@@ -64,6 +67,19 @@ __all__ = [
 IDENTITY_COLUMNS = ("name", "systematic_name", "smiles", "inchikey")
 SURVIVOR_COLUMNS = ("unknown", *IDENTITY_COLUMNS, "probability", "flagged", "flags")
 UNKNOWN_COLUMNS = ("unknown", "label", "scope_count", "count")
+RESIDUE_COLUMNS = (
+    "unknown",
+    "name",
+    "display",
+    "sugar",
+    "ring",
+    "anomer",
+    "linked_positions",
+    "alditol_acetate",
+    "probability",
+    "flagged",
+    "flags",
+)
 TRAIL_COLUMNS = ("step", "observation", "kind", "status", "unknown", "eliminated", "reason")
 CONFLICT_COLUMNS = ("conflict", "observation", "kind", "description")
 OBSERVATION_COLUMNS = ("observation", "kind", "references", "description", "recorded", "by", "note")
@@ -108,8 +124,17 @@ _PRODUCT_REACTIONS = ("osazone", "aldaric_acid", "alditol", "aldonic_acid")
 
 
 @cache
-def _identity(chain: Chain) -> tuple[str, str, str, str]:
-    return display_name(chain), systematic_name(chain), to_smiles(chain), to_inchikey(chain)
+def _identity(candidate: Any) -> tuple[str, str, str, str]:
+    """Name, systematic name, SMILES and InChIKey, as ``solve --json`` gives them.
+
+    A glycan residue (:class:`workbench.chem.residue.Residue`) gives its condensed
+    name, the systematic name and InChIKey of its sugar, and its own SMILES
+    (``*`` for the neighbouring residues), as in Contract 5.
+    """
+    if not isinstance(candidate, Chain):
+        sugar = candidate.chain
+        return candidate.name, systematic_name(sugar), candidate.smiles, to_inchikey(sugar)
+    return display_name(candidate), systematic_name(candidate), to_smiles(candidate), to_inchikey(candidate)
 
 
 def _frame(rows: list[dict[str, Any]], columns: Sequence[str]) -> pd.DataFrame:
@@ -146,6 +171,47 @@ def survivors_frame(solution: Solution) -> pd.DataFrame:
                 }
             )
     return _frame(rows, SURVIVOR_COLUMNS)
+
+
+def residues_frame(solution: Solution) -> pd.DataFrame:
+    """One row per surviving candidate of every residue unknown (columns :data:`RESIDUE_COLUMNS`).
+
+    A residue unknown (Contract 5) has candidates (sugar, ring, anomer, linked
+    positions). ``name`` is the IUPAC condensed form (``->4)-alpha-D-Glcp-(1->``),
+    ``display`` the same with arrows and Greek letters, ``linked_positions``
+    the linked oxygen positions joined with ``","`` (empty for a terminal
+    residue), ``alditol_acetate`` the predicted partially methylated alditol
+    acetate(s) joined with ``"; "``. Other unknowns are left out; the frame is
+    empty (with its columns) when there is no residue unknown.
+    """
+    from workbench.chem.methylation import alditol_acetate
+    from workbench.evidence.rivals import survivor_probabilities
+
+    rows: list[dict[str, Any]] = []
+    for uid in solution.project.unknown_ids:
+        survivors = solution.survivors[uid]
+        if not survivors or isinstance(survivors[0], Chain):
+            continue
+        flags = solution.flags.get(uid, {})
+        shares = survivor_probabilities(solution, uid)
+        for residue in sorted(survivors, key=lambda r: -shares[r]):
+            notes = flags.get(residue, ())
+            rows.append(
+                {
+                    "unknown": uid,
+                    "name": residue.name,
+                    "display": residue.display,
+                    "sugar": residue.sugar,
+                    "ring": residue.ring,
+                    "anomer": residue.anomer,
+                    "linked_positions": ",".join(map(str, residue.linked)),
+                    "alditol_acetate": "; ".join(alditol_acetate(residue).names),
+                    "probability": shares[residue],
+                    "flagged": bool(notes),
+                    "flags": "; ".join(notes),
+                }
+            )
+    return _frame(rows, RESIDUE_COLUMNS)
 
 
 def unknowns_frame(solution: Solution) -> pd.DataFrame:

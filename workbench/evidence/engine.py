@@ -109,6 +109,12 @@ class Solution:
 
         return unknowns_frame(self)
 
+    def residues_frame(self) -> pd.DataFrame:
+        """The surviving candidates of residue unknowns (:func:`workbench.frames.residues_frame`)."""
+        from workbench.frames import residues_frame
+
+        return residues_frame(self)
+
     def trail_frame(self) -> pd.DataFrame:
         """Every elimination with its observation and reason (:func:`workbench.frames.trail_frame`)."""
         from workbench.frames import trail_frame
