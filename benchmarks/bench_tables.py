@@ -111,18 +111,27 @@ def warm_change() -> None:
 
 
 def first_open(path: Path) -> None:
+    # In a notebook the kernel has IPython loaded already; the first open then pays our imports and the panels.
     code = (
-        "import time; t = time.perf_counter()\n"
+        "import time; t0 = time.perf_counter()\n"
+        "import IPython, ipywidgets\n"
+        "t = time.perf_counter()\n"
         "from workbench.ui.app import Workbench\n"
         f"bench = Workbench.open({str(path)!r})\n"
-        "print(time.perf_counter() - t)\n"
+        "t1 = time.perf_counter()\n"
+        "print(t - t0, t1 - t)\n"
     )
-    runs = []
+    runs, kernel = [], []
     for _ in range(3):
         out = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, check=True)
-        runs.append(float(out.stdout.strip().splitlines()[-1]))
-    print("3. first open of the whole workbench on the broadest-scope project, fresh process (imports included)")
-    print(f"   {statistics.median(runs):.2f} s (median of 3)")
+        before, panels = map(float, out.stdout.strip().splitlines()[-1].split())
+        runs.append(panels)
+        kernel.append(before)
+    print("3. first open of the whole workbench on the broadest-scope project, fresh process")
+    print(
+        f"   every panel built (imports of workbench included, plan ranked): {statistics.median(runs):.2f} s;"
+        f" IPython and ipywidgets, loaded before by any kernel: {statistics.median(kernel):.2f} s (medians of 3)"
+    )
 
 
 def main() -> None:

@@ -47,6 +47,7 @@ alkaline in a hood; borohydride releases hydrogen with acid or water.
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from dataclasses import dataclass
 from typing import Literal
 
@@ -74,6 +75,7 @@ __all__ = [
     "shorten",
     "relation",
     "relation_of_sets",
+    "relation_to",
     "is_optically_active",
 ]
 
@@ -393,8 +395,18 @@ def relation_of_sets(a: frozenset[str], b: frozenset[str]) -> str:
     product of one is the mirror image of a product of the other (and none is
     shared); otherwise ``different``. Members are canonical SMILES.
     """
-    if a & b:
-        return "identical"
-    if a & {mirror_smiles(x) for x in b}:  # mirror the (usually fixed, cached) reference side
-        return "enantiomeric"
-    return "different"
+    return relation_to(b)(a)
+
+
+def relation_to(b: frozenset[str]) -> Callable[[frozenset[str]], str]:
+    """:func:`relation_of_sets` of many product sets ``a`` against one ``b`` (its mirror images found once)."""
+    mirrored = frozenset(mirror_smiles(x) for x in b)
+
+    def relation(a: frozenset[str]) -> str:
+        if a & b:
+            return "identical"
+        if a & mirrored:
+            return "enantiomeric"
+        return "different"
+
+    return relation

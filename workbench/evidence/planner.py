@@ -272,9 +272,9 @@ def _experiments_for(
 
             def rel(s: Sequence[Chain], r: str = reaction, rk: frozenset = ref_key) -> list[Hashable]:
                 got, vals = tables.codes(f"product|{r}", s)
+                to_reference = reactions.relation_to(rk)
                 words = {  # one relation per distinct product set
-                    c: "no product" if vals[c] is None else reactions.relation_of_sets(vals[c], rk)
-                    for c in np.unique(got).tolist()
+                    c: "no product" if vals[c] is None else to_reference(vals[c]) for c in np.unique(got).tolist()
                 }
                 return [words[c] for c in got.tolist()]
 
@@ -425,9 +425,10 @@ def plan(
         if mine:
             row_of = {c: i for i, c in enumerate(survivors)}
             rows = [row_of[w[uid]] for w in mine]
-            unit_names = [display_name(w[uid]) for w in mine]
+            names = tables.values("derived|display_name", survivors)
+            unit_names = [names[i] for i in rows]
         else:
-            unit_names = [display_name(c) for c in survivors]
+            unit_names = tables.values("derived|display_name", survivors)
         for kind, fields, title, fn in _experiments_for(uid, survivors, ()):
             per_survivor = fn(survivors)
             if mine:

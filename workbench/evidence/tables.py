@@ -182,7 +182,14 @@ def _coupling_pairs(form: str) -> Callable[[Chain], Hashable]:
     return pairs
 
 
+def _display_name(candidate: Any) -> str:
+    from workbench.chem.names import display_name
+
+    return display_name(candidate)
+
+
 _DERIVED: dict[str, Callable[[Chain], Hashable]] = {
+    "display_name": _display_name,
     "extension_aldaric": _extension_word,
     "shortening_aldaric": _shortening_word,
     "coupling_pairs_alpha_pyranose": _coupling_pairs("alpha_pyranose"),
@@ -241,33 +248,40 @@ class _Column:
 
 
 class _Store:
-    """Rows (candidates) and columns (experiments) of this process; see the module docstring."""
+    """Rows (candidates) and columns (experiments) of this process; see the module docstring.
+
+    A row is known by its candidate's spec (:func:`_spec`, plain tuples), so
+    rows read from a file need no structure built until a candidate asks.
+    """
 
     def __init__(self) -> None:
-        self.rows: dict[Chain, int] = {}
-        self.chains: list[Chain] = []
+        self.rows: dict[tuple, int] = {}
+        self.specs: list[tuple] = []
         self.columns: dict[str, _Column] = {}
         self.dirty = False
         self.loaded = False
-        self.recent: dict[int, tuple[Sequence[Chain], np.ndarray]] = {}
+        self.recent: dict[int, tuple[Sequence[Any], np.ndarray]] = {}
         self.lock = threading.RLock()
 
     # rows
-    def index(self, chains: Sequence[Chain]) -> np.ndarray:
+    def row_of_spec(self, spec: tuple) -> int:
+        r = self.rows.get(spec)
+        if r is None:
+            r = self.rows[spec] = len(self.specs)
+            self.specs.append(spec)
+        return r
+
+    def index(self, chains: Sequence[Any]) -> np.ndarray:
         seen = self.recent.get(id(chains))
         if seen is not None and seen[0] is chains:
             return seen[1]  # the planner and the engine ask about the same tuples several times
-        # the row is kept on the chain object too (as Chain keeps its hash): catalogue chains are
-        # shared objects, so most look-ups skip hashing and comparing the chain
+        # the row is kept on the candidate object too (as Chain keeps its hash): catalogue chains are
+        # shared objects, so most look-ups skip building and hashing the spec
         out = np.fromiter((c.__dict__.get("_table_row", -1) for c in chains), dtype=np.int64, count=len(chains))
         if (out < 0).any():
-            rows = self.rows
             for i in np.flatnonzero(out < 0).tolist():
                 c = chains[i]
-                r = rows.get(c)
-                if r is None:
-                    r = rows[c] = len(self.chains)
-                    self.chains.append(c)
+                r = self.row_of_spec(_spec(c))
                 object.__setattr__(c, "_table_row", r)
                 out[i] = r
         if isinstance(chains, tuple):  # immutable: its rows cannot change (a list could be edited in place)
@@ -279,9 +293,9 @@ class _Store:
     def column(self, key: str) -> _Column:
         col = self.columns.get(key)
         if col is None:
-            col = self.columns[key] = _Column(np.full(max(len(self.chains), 16), -1, dtype=np.int32))
-        if len(col.codes) < len(self.chains):
-            grown = np.full(max(len(self.chains), 2 * len(col.codes)), -1, dtype=np.int32)
+            col = self.columns[key] = _Column(np.full(max(len(self.specs), 16), -1, dtype=np.int32))
+        if len(col.codes) < len(self.specs):
+            grown = np.full(max(len(self.specs), 2 * len(col.codes)), -1, dtype=np.int32)
             grown[: len(col.codes)] = col.codes
             col.codes = grown
         return col
@@ -295,10 +309,10 @@ class _Store:
             missing = np.flatnonzero(got < 0)
             if len(missing):
                 fn = _compute_fn(key)
-                for i in missing:
+                for i in missing.tolist():
                     r = rows[i]
                     if col.codes[r] < 0:
-                        col.codes[r] = col.code_of(fn(self.chains[r]))
+                        col.codes[r] = col.code_of(fn(chains[i]))
                 got = col.codes[rows]
                 self.dirty = True
             return got, col.values
@@ -313,12 +327,11 @@ class _Store:
                 data = _read(path)
                 if data is not None:
                     self._merge(data)
-                    log.debug("outcome tables from %s: %d rows, %d columns", path, len(self.chains), len(self.columns))
+                    log.debug("outcome tables from %s: %d rows, %d columns", path, len(self.specs), len(self.columns))
                     return
 
     def _merge(self, data: dict) -> None:
-        chains = [_unspec(spec) for spec in data["chains"]]
-        rows = self.index(chains)
+        rows = np.array([self.row_of_spec(tuple(spec)) for spec in data["chains"]], dtype=np.int64)
         for key, (codes, vals) in data["columns"].items():
             col = self.column(key)
             for v in vals:
@@ -334,11 +347,11 @@ class _Store:
     def snapshot(self, keys: Iterable[str] | None = None) -> dict:
         with self.lock:
             wanted = list(self.columns) if keys is None else list(keys)
-            n = len(self.chains)
+            n = len(self.specs)
             return {
                 "format": _FORMAT,
                 "key": rules_key(),
-                "chains": [_spec(c) for c in self.chains],
+                "chains": list(self.specs),
                 "columns": {
                     k: (self.column(k).codes[:n].copy(), list(self.columns[k].values))
                     for k in wanted
@@ -348,11 +361,18 @@ class _Store:
 
 
 def _spec(candidate: Any) -> tuple:
-    """A candidate as plain tuples for a table file: a chain, or a glycan residue on its chain."""
+    """A candidate as plain tuples (its row's name in memory and in files): a chain, or a glycan residue."""
     if isinstance(candidate, Chain):
-        return ("chain", candidate.groups, candidate.sides)
+        return ("chain", tuple(candidate.groups), tuple(candidate.sides))
     chain = candidate.chain
-    return ("residue", chain.groups, chain.sides, candidate.ring, candidate.anomer, tuple(candidate.linked))
+    return (
+        "residue",
+        tuple(chain.groups),
+        tuple(chain.sides),
+        candidate.ring,
+        candidate.anomer,
+        tuple(candidate.linked),
+    )
 
 
 def _unspec(spec: tuple) -> Any:
