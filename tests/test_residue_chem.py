@@ -271,3 +271,13 @@ def test_threitol_without_series_matches_either_enantiomer():
     assert not fragment.matches(product_keys("L-threitol"))
     with pytest.raises(NameNotRecognisedError):
         product_keys("threitolx")
+
+
+@pytest.mark.parametrize("linked", HEXOPYRANOSYL_LINKAGES[:5], ids=str)
+def test_both_anomers_give_one_alditol_acetate(linked):
+    # hydrolysis destroys the anomeric centre (definition): computed on the beta structure directly
+    from workbench.chem.methylation import _alditol_acetate
+
+    alpha = alditol_acetate(R("D-galactose", "pyranose", "alpha", *linked))
+    beta = _alditol_acetate(R("D-galactose", "pyranose", "beta", *linked), "NaBD4")
+    assert (alpha.methyl, alpha.acetyl, alpha.smiles) == (beta.methyl, beta.acetyl, beta.smiles)

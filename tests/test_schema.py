@@ -106,7 +106,7 @@ def _valid_value(spec):
         return {"acetyl": [1, 5], "methyl": [2, 3, 4, 6]}.get(spec.name, [1, 2, 3][: max(spec.min_items, 1)])
     if spec.type == "numbers":
         return [1.0, 2.0]
-    return {"pair": "H1-H2", "product": "glycerol"}.get(spec.name, "C6H12O6")
+    return {"pair": "H1-H2", "product": "glycerol", "sugar": "D-glucose"}.get(spec.name, "C6H12O6")
 
 
 def _examples() -> dict[str, dict]:

@@ -262,11 +262,23 @@ def _alditol_sides(chain: Chain, anomeric: int) -> list[list[str]]:
     return out
 
 
-@lru_cache(maxsize=65536)
 def alditol_acetate(residue: Residue, reductant: str = "NaBD4") -> AlditolAcetate:
-    """The partially methylated alditol acetate of ``residue`` (module notes give the steps)."""
+    """The partially methylated alditol acetate of ``residue`` (module notes give the steps).
+
+    Hydrolysis destroys the anomeric centre, so both anomers give the same
+    product: it is computed once, on the alpha residue of the same sugar,
+    ring and linkage (``tests/test_residue_chem.py`` checks this on the beta
+    structures too).
+    """
     if reductant not in REDUCTANTS:
         raise StructureError(f"reductant must be one of {', '.join(REDUCTANTS)}, got {reductant!r}")
+    if residue.anomer != "alpha":
+        residue = Residue(residue.chain, residue.ring, "alpha", residue.linked)
+    return _alditol_acetate(residue, reductant)
+
+
+@lru_cache(maxsize=65536)
+def _alditol_acetate(residue: Residue, reductant: str) -> AlditolAcetate:
     a = residue.anomeric_carbon
     rw = Chem.RWMol(residue_mol(residue))
     rw = _reduce_carboxyl(rw)

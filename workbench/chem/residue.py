@@ -33,6 +33,7 @@ from workbench.chem.catalogue import Scope, catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name, systematic_name
 from workbench.chem.smiles import RingForm, _write, canonical, quiet_rdkit, ring_forms
+from workbench.chem.symbols import symbol
 from workbench.errors import ScopeError, StructureError
 
 __all__ = [
@@ -51,41 +52,9 @@ __all__ = [
 RINGS = ("pyranose", "furanose")
 ANOMERS = ("alpha", "beta")
 
-# IUPAC-IUBMB 1996 (2-Carb-38.1) three-letter symbols of the parent sugars; uronic acids add "A",
-# 6-deoxyhexoses without a trivial name are written "6d" + the parent's symbol [from memory].
-_SYMBOLS: dict[str, str] = {
-    "erythrose": "Ery",
-    "threose": "Thr",
-    "ribose": "Rib",
-    "arabinose": "Ara",
-    "xylose": "Xyl",
-    "lyxose": "Lyx",
-    "allose": "All",
-    "altrose": "Alt",
-    "glucose": "Glc",
-    "mannose": "Man",
-    "gulose": "Gul",
-    "idose": "Ido",
-    "galactose": "Gal",
-    "talose": "Tal",
-    "ribulose": "Rul",
-    "xylulose": "Xul",
-    "psicose": "Psi",
-    "fructose": "Fru",
-    "sorbose": "Sor",
-    "tagatose": "Tag",
-    "rhamnose": "Rha",
-    "fucose": "Fuc",
-    "quinovose": "Qui",
-    "glucuronic acid": "GlcA",
-    "galacturonic acid": "GalA",
-    "mannuronic acid": "ManA",
-    "guluronic acid": "GulA",
-    "iduronic acid": "IdoA",
-    "alluronic acid": "AllA",
-    "altruronic acid": "AltA",
-    "taluronic acid": "TalA",
-}
+# Symbols the IUPAC list (chem.symbols) lacks: 2-ketopentoses, and 6-deoxyhexoses and hexuronic acids
+# without a trivial name, written "6d" + or + "A" after the parent's symbol (2-Carb-38 [from memory]).
+_EXTRA_SYMBOLS = {"ribulose": "Rul", "xylulose": "Xul"}
 _HEXOSE_SYMBOLS = {
     "allo": "All",
     "altro": "Alt",
@@ -101,23 +70,25 @@ _HEXOSE_SYMBOLS = {
 def sugar_symbol(chain: Chain) -> tuple[str, str]:
     """(series, symbol) of a sugar for condensed names, e.g. ``("D", "Glc")``.
 
-    Sugars with no symbol in the table are written with their systematic
-    name in square brackets (no series, which the name already carries).
+    IUPAC symbols come from :func:`workbench.chem.symbols.symbol`; sugars
+    with no symbol are written with their systematic name in square
+    brackets (no series, which the name already carries).
     """
     series = chain.series or ""
+    found = symbol(chain)
+    if found is not None:
+        head, _, sym = found.partition("-")
+        return (head, sym) if head in ("D", "L") and sym else ("", found)
     name = display_name(chain)
     stem = name[2:] if name[:2] in ("D-", "L-") else name
-    if stem in _SYMBOLS:
-        return series, _SYMBOLS[stem]
+    if stem in _EXTRA_SYMBOLS:
+        return series, _EXTRA_SYMBOLS[stem]
     system = systematic_name(chain)
-    if chain.carbons == 6 and chain.carbonyl == "aldose" and chain.deoxy_positions == (6,):
-        word = system.split("-")[-2]  # 6-deoxy-D-altro-hexose -> altro
-        if word in _HEXOSE_SYMBOLS:
-            return series, "6d" + _HEXOSE_SYMBOLS[word]
-    if chain.is_uronic and chain.carbons == 6:
-        word = system.split("-")[-2].split(" ")[0]
-        if word in _HEXOSE_SYMBOLS:
-            return series, _HEXOSE_SYMBOLS[word] + "A"
+    word = system.split("-")[-2].split(" ")[0] if system.count("-") >= 2 else ""
+    if chain.carbons == 6 and chain.carbonyl == "aldose" and chain.deoxy_positions == (6,) and word in _HEXOSE_SYMBOLS:
+        return series, "6d" + _HEXOSE_SYMBOLS[word]
+    if chain.is_uronic and chain.carbons == 6 and word in _HEXOSE_SYMBOLS:
+        return series, _HEXOSE_SYMBOLS[word] + "A"
     return "", f"[{system}]"
 
 

@@ -252,6 +252,12 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
                 _UNKNOWN,
                 FieldSpec("methyl", "positions", "carbons with O-methyl, numbered from the deuterated C", maximum=9),
                 FieldSpec("acetyl", "positions", "carbons with O-acetyl", maximum=9, min_items=1),
+                FieldSpec(
+                    "sugar",
+                    "text",
+                    "the sugar whose alditol acetate it is (GC retention time, mass spectrum), if known",
+                    required=False,
+                ),
             ),
         ),
         _kind(
@@ -500,6 +506,14 @@ def _check_residue_kind(kind: str, kwargs: dict[str, Any], oid: str) -> None:
         both = set(kwargs["methyl"]) & set(kwargs["acetyl"])
         if both:
             raise ObservationError(oid, "acetyl", f"C-{min(both)} cannot carry both O-methyl and O-acetyl")
+        if kwargs.get("sugar"):
+            from workbench.chem.parse import resolve
+            from workbench.errors import NameNotRecognisedError
+
+            try:
+                resolve(kwargs["sugar"])
+            except NameNotRecognisedError as err:
+                raise ObservationError(oid, "sugar", str(err)) from err
     elif kind == "smith_degradation":
         product = kwargs["product"]
         if product.lower() == "none":

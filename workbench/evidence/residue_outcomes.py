@@ -24,13 +24,17 @@ from __future__ import annotations
 
 import itertools
 from collections.abc import Callable
+from functools import lru_cache
 from typing import Any
 
 from workbench.chem.methylation import alditol_acetate
+from workbench.chem.parse import resolve
 from workbench.chem.residue import Residue, ResidueScope
 from workbench.chem.residue_periodate import SmithFragment, product_keys, residue_periodate, residue_smith
+from workbench.evidence import outcomes
 from workbench.evidence.network import Binary
 from workbench.evidence.observations import Observation
+from workbench.evidence.outcomes import Verdict
 
 __all__ = [
     "Choices",
@@ -52,6 +56,11 @@ class Choices(tuple):
     __slots__ = ()
 
 
+@lru_cache(maxsize=256)
+def _sugar(name: str) -> Any:
+    return resolve(name)
+
+
 def _is_residue_kind(obs: Observation) -> bool:
     return obs.KIND in RESIDUE_KINDS or (obs.KIND == "periodate" and obs.substrate == "residue")
 
@@ -70,9 +79,7 @@ def predict(obs: Observation, residue: Residue) -> Any:
         return residue.ring
     if kind == "periodate" and obs.substrate == "residue":
         return residue_periodate(residue).as_tuple()
-    from workbench.evidence.outcomes import predict as sugar_predict
-
-    return sugar_predict(obs, residue.chain)
+    return outcomes.predict(obs, residue.chain)
 
 
 def _positions(values: tuple[int, ...]) -> str:
@@ -94,13 +101,12 @@ def outcome_label(kind: str, value: Any) -> str:
 
 def fits(obs: Observation, residue: Residue) -> Any:
     """:class:`~workbench.evidence.outcomes.Verdict` of ``obs`` on ``residue``."""
-    from workbench.evidence.outcomes import Verdict
-    from workbench.evidence.outcomes import fits as sugar_fits
-
     if not _is_residue_kind(obs):
-        verdict = sugar_fits(obs, residue.chain)
+        verdict = outcomes.fits(obs, residue.chain)
         return Verdict(verdict.fits, f"{residue.sugar}: {verdict.reason}" if verdict.reason else "", verdict.flagged)
     kind = obs.KIND
+    if kind == "methylation_analysis" and obs.sugar and _sugar(obs.sugar) != residue.chain:
+        return Verdict(False, f"the alditol acetate is of {obs.sugar}, not of {residue.sugar}")
     predicted = predict(obs, residue)
     if kind == "methylation_analysis":
         ok = predicted == (tuple(obs.methyl), tuple(obs.acetyl))
