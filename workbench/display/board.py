@@ -7,10 +7,12 @@ Stereocentres on which the survivors still disagree are ringed in amber.
 
 from __future__ import annotations
 
+from workbench.chem.chain import Chain
 from workbench.chem.names import display_name, systematic_name
 from workbench.display.chart import narrowing_chart
 from workbench.display.fischer import disputed_centres, fischer_svg
 from workbench.display.palette import ACCENT, CAUTION, FONT, INK, MUTED, PAPER, RULE, esc
+from workbench.display.residues import residue_cards_html
 from workbench.display.tables import conflicts_html, eliminated_html, ledger_html, scope_text, trail_html
 
 __all__ = ["survivor_card", "survivors_html", "board_html", "solution_html"]
@@ -37,6 +39,8 @@ def survivors_html(solution, uid: str, limit: int = 24) -> str:
     if not survivors:
         why = "the evidence is contradictory" if solution.contradictory else "no candidate fits"
         return f'<p style="font-family:{FONT};color:{MUTED}">No candidate survives: {esc(why)}.</p>'
+    if not isinstance(survivors[0], Chain):  # glycan residues: ring drawings with linked positions
+        return residue_cards_html(solution, uid, limit)
     open_centres = disputed_centres(survivors)
     flags = solution.flags.get(uid, {})
     cards = "".join(survivor_card(c, open_centres, flags.get(c, ())) for c in survivors[:limit])

@@ -60,6 +60,9 @@ def _distance(a: Chain, b: Chain | None) -> int:
     """Stereocentres that differ between two chains of one constitution; large for another constitution."""
     if b is None:
         return 0
+    if not isinstance(a, Chain) or not isinstance(b, Chain):  # glycan residues: sugar, then ring, anomer, linkage
+        ring, anomer = int(a.ring != b.ring), int(a.anomer != b.anomer)
+        return _distance(a.chain, b.chain) + ring + anomer + len(set(a.linked) ^ set(b.linked))
     if a.groups != b.groups:
         return 100 + sum(x != y for x, y in zip(a.groups, b.groups, strict=False)) + abs(len(a.groups) - len(b.groups))
     return sum(x != y for x, y in zip(a.sides, b.sides, strict=True))
