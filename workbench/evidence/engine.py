@@ -428,14 +428,9 @@ def _gone(before: Sequence[Chain], after: Sequence[Chain]) -> tuple[Chain, ...]:
     return tuple(before[i] for i in np.flatnonzero(lost).tolist())
 
 
-def _tabled(chains: Sequence[Chain]) -> bool:
-    """Candidates the outcome tables hold (chains; glycan residues are judged directly)."""
-    return isinstance(chains[0], Chain)
-
-
 def _flagged(obs: Observation, chains: Sequence[Chain]) -> list[tuple[Chain, Verdict]]:
     """The survivors of unary ``obs`` that are kept only with a flag, with their verdicts."""
-    if tables.observation_key(obs) is not None and obs.KIND not in tables.ESTIMATED and chains and _tabled(chains):
+    if tables.observation_key(obs) is not None and obs.KIND not in tables.ESTIMATED and chains:
         got, _ = tables.codes(tables.observation_key(obs) or "", chains)
         uniq, first = np.unique(got, return_index=True)
         flagged = {code for code, i in zip(uniq.tolist(), first.tolist(), strict=True) if fits(obs, chains[i]).flagged}

@@ -28,6 +28,7 @@ from functools import lru_cache
 from typing import Any
 
 from workbench.chem.methylation import alditol_acetate
+from workbench.chem.names import display_name
 from workbench.chem.parse import resolve
 from workbench.chem.residue import Residue, ResidueScope
 from workbench.chem.residue_periodate import SmithFragment, product_keys, residue_periodate, residue_smith
@@ -68,9 +69,9 @@ def _is_residue_kind(obs: Observation) -> bool:
 def predict(obs: Observation, residue: Residue) -> Any:
     """The predicted outcome of ``obs`` for ``residue`` (other kinds: for the sugar it releases)."""
     kind = obs.KIND
-    if kind == "methylation_analysis":
+    if kind == "methylation_analysis":  # the GC-MS also tells which sugar's alditol it is
         pmaa = alditol_acetate(residue)
-        return (pmaa.methyl, pmaa.acetyl)
+        return (pmaa.methyl, pmaa.acetyl, residue.chain)
     if kind == "smith_degradation":
         return residue_smith(residue)
     if kind == "anomer":
@@ -89,8 +90,9 @@ def _positions(values: tuple[int, ...]) -> str:
 def outcome_label(kind: str, value: Any) -> str:
     """A short word for a predicted residue outcome."""
     if kind == "methylation_analysis":
-        methyl, acetyl = value
-        return f"OMe {_positions(methyl)}; OAc {_positions(acetyl)}"
+        methyl, acetyl, *sugar = value
+        of = f" ({display_name(sugar[0])})" if sugar and sugar[0] is not None else ""
+        return f"OMe {_positions(methyl)}; OAc {_positions(acetyl)}{of}"
     if kind == "smith_degradation":
         return value.word if isinstance(value, SmithFragment) else str(value)
     if kind == "periodate":
@@ -105,14 +107,14 @@ def fits(obs: Observation, residue: Residue) -> Any:
         verdict = outcomes.fits(obs, residue.chain)
         return Verdict(verdict.fits, f"{residue.sugar}: {verdict.reason}" if verdict.reason else "", verdict.flagged)
     kind = obs.KIND
-    if kind == "methylation_analysis" and obs.sugar and _sugar(obs.sugar) != residue.chain:
-        return Verdict(False, f"the alditol acetate is of {obs.sugar}, not of {residue.sugar}")
-    predicted = predict(obs, residue)
+    predicted = predict(obs, residue)  # the verdict depends on the residue only through this value
     if kind == "methylation_analysis":
-        ok = predicted == (tuple(obs.methyl), tuple(obs.acetyl))
-        observed = outcome_label(kind, (tuple(obs.methyl), tuple(obs.acetyl)))
+        if obs.sugar and _sugar(obs.sugar) != predicted[2]:
+            return Verdict(False, f"the alditol acetate is of {obs.sugar}, not of {display_name(predicted[2])}")
+        ok = predicted[:2] == (tuple(obs.methyl), tuple(obs.acetyl))
+        observed = outcome_label(kind, (tuple(obs.methyl), tuple(obs.acetyl), None))
         if not ok:
-            name = alditol_acetate(residue).name
+            name = alditol_acetate(residue).name  # same for every residue of this predicted value
             return Verdict(False, f"predicted {outcome_label(kind, predicted)} ({name}), observed {observed}")
         return Verdict(True)
     if kind == "smith_degradation":
