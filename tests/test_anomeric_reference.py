@@ -85,6 +85,8 @@ def _anomeric_cip(smiles: str) -> str:
         ("D-glycero-D-manno-heptose", "D-mannose"),
         ("L-glycero-D-gluco-heptose", "D-glucose"),
         ("D-glycero-L-gluco-heptose", "L-glucose"),
+        ("D-erythro-D-gluco-octose", "D-glucose"),
+        ("L-threo-D-manno-octose", "D-mannose"),
     ],
 )
 @pytest.mark.parametrize("anomer", ["alpha", "beta"])

@@ -157,6 +157,24 @@ def _doubtful(reaction: str, chain: Chain) -> bool:
     return record_of(chain).uncertain(reaction) is not None
 
 
+def _doubtful_members(
+    project: Project, obs: Observation, survivors: Mapping[str, Sequence[Chain]]
+) -> Iterable[tuple[str, Chain, str]]:
+    """(unknown, survivor, reason) where a relation rests on a product the model does not predict."""
+    if obs.KIND == "same_product":
+        reaction, members = obs.reaction, list(obs.members)
+    elif obs.KIND == "chain_shortening":
+        reaction, members = "chain_shortening", [obs.substrate]
+    else:
+        return
+    for uid in members:
+        if uid in project.unknown_ids:
+            for c in survivors[uid]:
+                why = record_of(c).uncertain(reaction)
+                if why:
+                    yield uid, c, why
+
+
 def _product_test(reaction: str, relation: str):
     def test(x: Chain, y: Chain) -> bool:
         kx, ky = product_key(reaction, x), product_key(reaction, y)
@@ -483,6 +501,8 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
         if obs.UNARY:
             for c, verdict in _flagged(obs, trial[obs.unknown]):
                 flags[obs.unknown].setdefault(c, []).append(f"{obs.id}: {verdict.reason}")
+        for uid, c, why in _doubtful_members(project, obs, trial):
+            flags[uid].setdefault(c, []).append(f"{obs.id}: no prediction for {display_name(c)} ({why}); kept")
         applied.append(obs)
         constraints += new_cons
         fixed.update(new_fixed)

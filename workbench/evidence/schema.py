@@ -135,12 +135,17 @@ def _scope_schema() -> dict[str, Any]:
             "description": "chain lengths",
         },
         "carbonyl": {"type": "array", "minItems": 1, "items": {"enum": ["aldose", "ketose"]}},
-        "series": {"type": "array", "minItems": 1, "items": {"enum": ["D", "L"]}},
+        "series": {
+            "type": "array",
+            "minItems": 1,
+            "items": {"enum": ["D", "L"]},
+            "description": "D/L from the highest-numbered stereocentre (L-glycero-D-manno-heptose is L)",
+        },
         "modifications": {
             "type": "array",
             "minItems": 1,
             "items": _TEXT,
-            "description": "none, any, uronic, deoxy:N[,M], amino:N, omethyl:N, or several joined with '+'",
+            "description": "none, any, uronic, deoxy:N[,M], amino:N, acetamido:N, omethyl:N, or several joined with '+'",
         },
         "sugars": {"type": "array", "items": _TEXT, "description": "sugar names; the candidates are these sugars"},
     }
