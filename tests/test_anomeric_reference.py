@@ -132,6 +132,9 @@ def test_observed_alpha_coupling_keeps_the_true_heptose():
             ],
         }
     )
-    survivors = solve(project).survivors["H"]
-    assert from_name("L-glycero-D-gluco-heptose") in survivors
-    assert from_name("L-glycero-D-manno-heptose") not in survivors  # alpha-Manp-like J1,2 about 1.8 Hz
+    solution = solve(project)
+    assert from_name("L-glycero-D-gluco-heptose") in solution.survivors["H"]
+    # alpha-Manp-like J1,2 about 1.8 Hz: within four combined errors of 3.7 Hz (Contract 3), so it is
+    # kept, but weighed well below the gluco-configured ring
+    gluco = solution.probability("H", from_name("L-glycero-D-gluco-heptose"))
+    assert gluco > 2 * solution.probability("H", from_name("L-glycero-D-manno-heptose"))

@@ -5,6 +5,7 @@ from __future__ import annotations
 import itertools
 from pathlib import Path
 
+import pytest
 from hypothesis import HealthCheck, example, given, settings
 from hypothesis import strategies as st
 
@@ -337,26 +338,32 @@ def test_stepwise_degradation_chain_of_three_linked_unknowns():
     assert names(solve(q), "H") == ["D-glucose"]
 
 
-def test_rotation_sign_alone_can_eliminate():
+def test_rotation_sign_alone_weighs_but_does_not_eliminate():
     # Signs of the D-aldoses (REFERENCE_VALUES.md): (-) gulose and idose among the hexoses; glucose
     # +52.7 (Bruice 8th ed.), galactose +80.2, mannose +14.6 (handbook table). A laevorotatory
-    # D-aldohexose is D-gulose or D-idose; both are kept with a flag, having only a published sign.
+    # D-aldohexose: the measured values of glucose, galactose and mannose are far off and go; a
+    # published sign alone is weak evidence (Contract 3), so allose, altrose and talose (+) stay,
+    # less probable than gulose and idose (-).
     p = project(
         [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}}],
         [{"id": "E1", "kind": "specific_rotation", "unknown": "U", "value": -20.0}],
     )
     sol = solve(p)
-    assert names(sol, "U") == ["D-gulose", "D-idose"]
+    assert names(sol, "U") == ["D-allose", "D-altrose", "D-gulose", "D-idose", "D-talose"]
     assert all("only the sign" in note[0] for note in sol.flags["U"].values())
+    prob = {display_name(c): sol.probability("U", c) for c in sol.survivors["U"]}
+    assert prob["D-gulose"] == pytest.approx(prob["D-idose"])
+    assert prob["D-gulose"] > prob["D-allose"] == pytest.approx(prob["D-talose"])
 
 
-def test_ketose_anomer_ratio_is_not_judged_by_the_aldose_scheme():
+def test_ketose_anomer_ratio_is_weighed_with_the_ketose_error():
     # D-fructose: beta-p 0.682, alpha-p 0.027 in D2O (Barclay et al., Carbohydr. Res. 347, 136, 2012);
-    # the pyranose scheme is not trusted for ketoses, so fructose must survive its own measured ratio
+    # the pyranose scheme misses fructose by 0.2, so ketoses carry their own wide error and a flag,
+    # and fructose must survive its own measured ratio
     p = project(
         [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["ketose"], "series": ["D"]}}],
         [{"id": "E1", "kind": "anomer_ratio", "unknown": "U", "alpha_fraction": 0.038}],
     )
     sol = solve(p)
     assert "D-fructose" in names(sol, "U")
-    assert any("no prediction" in n[0] for n in sol.flags["U"].values())
+    assert any("ketose" in n[0] for n in sol.flags["U"].values())

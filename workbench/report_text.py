@@ -11,7 +11,7 @@ from workbench.chem.names import display_name, systematic_name
 from workbench.chem.smiles import to_inchikey, to_smiles
 from workbench.chem.symbols import symbol
 
-__all__ = ["identity_json", "predict_json", "predict_text", "compound_text"]
+__all__ = ["identity_json", "predict_json", "predict_text", "compound_text", "probability_bar"]
 
 
 def identity_json(chain: Chain) -> dict:
@@ -129,16 +129,33 @@ def survivor_json(chain: Chain) -> dict:
 
 
 def solution_json(solution) -> dict:
-    """``solve --json`` (Contract 2): unknowns, trail, conflicts, plus relief and flags."""
+    """``solve --json`` (Contracts 2 and 3): unknowns, trail, conflicts, plus relief, flags and probabilities.
+
+    Each survivor carries ``probability`` (posterior, joint over linked
+    unknowns; sums to 1 per unknown) and ``flags``; each unknown
+    ``entropy_bits`` and ``posterior`` (how the sum was taken); ``suspects``
+    lists ``{"observation", "probability_wrong"}`` best first when the
+    evidence conflicts.
+    """
     unknowns = {}
     for uid in solution.project.unknown_ids:
         survivors = solution.survivors[uid]
+        flags = solution.flags.get(uid, {})
         unknowns[uid] = {
             "label": solution.project.unknown(uid).label,
             "scope_count": solution.scope_counts[uid],
             "count": len(survivors),
-            "survivors": [survivor_json(c) for c in survivors],
-            "flags": {display_name(c): list(v) for c, v in solution.flags.get(uid, {}).items()},
+            "survivors": [
+                {
+                    **survivor_json(c),
+                    "probability": round(solution.probability(uid, c), 6),
+                    "flags": list(flags.get(c, ())),
+                }
+                for c in survivors
+            ],
+            "entropy_bits": round(solution.entropy.get(uid, 0.0), 4),
+            "posterior": solution.posterior_methods.get(uid, ""),
+            "flags": {display_name(c): list(v) for c, v in flags.items()},
         }
     trail = []
     for step in solution.trail:
@@ -159,6 +176,7 @@ def solution_json(solution) -> dict:
         "unknowns": unknowns,
         "trail": trail,
         "conflicts": [list(c) for c in solution.conflicts],
+        "suspects": [{"observation": oid, "probability_wrong": round(p, 4)} for oid, p in solution.suspects],
         "without": relief,
         "disabled": list(solution.disabled),
     }
@@ -197,9 +215,12 @@ def solution_text(solution) -> str:
         u = project.unknown(uid)
         surv = solution.survivors[uid]
         label = f" ({u.label})" if u.label else ""
-        lines.append(f"{uid}{label}: {len(surv)} of {solution.scope_counts[uid]} candidates remain")
-        for chain in surv[:20]:
-            lines.append(f"    {display_name(chain):<36} {systematic_name(chain)}")
+        entropy = solution.entropy.get(uid)
+        spread = f", entropy {entropy:.2f} bits" if entropy is not None and surv else ""
+        lines.append(f"{uid}{label}: {len(surv)} of {solution.scope_counts[uid]} candidates remain{spread}")
+        for chain in solution.ranked(uid)[:20]:
+            p = solution.probability(uid, chain)
+            lines.append(f"    {display_name(chain):<36} {p:6.3f} {probability_bar(p):<20} {systematic_name(chain)}")
         if len(surv) > 20:
             lines.append(f"    ... (+{len(surv) - 20} more)")
         for chain, notes in solution.flags.get(uid, {}).items():
@@ -214,7 +235,16 @@ def solution_text(solution) -> str:
         for oid, by_u in solution.relief.items():
             summary = ", ".join(f"{u}: {len(cs)} ({_names(cs, 3)})" for u, cs in by_u.items())
             lines.append(f"  without {oid}: {summary}")
+        if solution.suspects:
+            lines.append("Most likely wrong (from each record's reliability and how well the rest agrees):")
+            for oid, p in solution.suspects:
+                lines.append(f"  {oid:<8} {p:6.3f} {probability_bar(p)}")
     return "\n".join(lines)
+
+
+def probability_bar(p: float, width: int = 20) -> str:
+    """A text bar of ``p`` (0-1) in ``width`` characters, e.g. ``#####``."""
+    return "#" * int(round(max(0.0, min(1.0, p)) * width))
 
 
 # ------------------------------------------------------------------ plans

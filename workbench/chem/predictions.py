@@ -11,8 +11,9 @@ their canonical isomeric SMILES, so products of thousands of candidates are
 compared by string equality.
 
 Measured quantities (pyranose anomer ratio, couplings, specific rotation)
-are read from the conformer layer; that import is deferred to the first
-access, because the conformer layer sits above this one.
+are read from the conformer layer with their calibrated standard errors
+(:mod:`workbench.conformers.calibration`); that import is deferred to the
+first access, because the conformer layer sits above this one.
 """
 
 from __future__ import annotations
@@ -32,6 +33,7 @@ from workbench.chem.smiles import to_smiles
 from workbench.errors import ObservationError
 
 if TYPE_CHECKING:
+    from workbench.conformers.calibration import Estimate
     from workbench.conformers.polarimetry import RotationRecord
 
 __all__ = [
@@ -361,6 +363,29 @@ class Prediction:
         from workbench.conformers.polarimetry import published_rotation
 
         return published_rotation(self.chain)
+
+    @cached_property
+    def alpha_share(self) -> Estimate | None:
+        """Calibrated alpha share of the pyranoses with its standard error (None: no pyranose).
+
+        See :mod:`workbench.conformers.calibration` for the classes and rules.
+        """
+        from workbench.conformers.calibration import alpha_share_estimate
+
+        return alpha_share_estimate(self.chain)
+
+    @cached_property
+    def rotation_estimate(self) -> Estimate | None:
+        """Calibrated equilibrium [alpha]D (deg mL g-1 dm-1) or a sign-only estimate (None: nothing published)."""
+        from workbench.conformers.calibration import rotation_estimate
+
+        return rotation_estimate(self.chain)
+
+    def coupling(self, form: str, pair: str) -> Estimate | None:
+        """Calibrated 3J(H,H) in Hz of ``pair`` in pyranose ``form`` (None: not predicted)."""
+        from workbench.conformers.calibration import coupling_estimate
+
+        return coupling_estimate(self.chain, form, pair)
 
     @cached_property
     def rotation_sign(self) -> int | None:

@@ -15,15 +15,43 @@ from workbench.display.palette import ACCENT, CAUTION, FONT, INK, MUTED, PAPER, 
 from workbench.display.residues import residue_cards_html
 from workbench.display.tables import conflicts_html, eliminated_html, ledger_html, scope_text, trail_html
 
-__all__ = ["survivor_card", "survivors_html", "board_html", "solution_html"]
+__all__ = ["survivor_card", "survivors_html", "board_html", "solution_html", "probability_bar_html", "suspects_html"]
 
 
-def survivor_card(chain, open_centres=(), flags=()) -> str:
-    """One candidate as a card: Fischer projection, name, systematic name, flags."""
+def probability_bar_html(p: float, width: int = 120) -> str:
+    """A horizontal bar of probability ``p`` (0-1) with its value, ``width`` pixels at 1."""
+    p = max(0.0, min(1.0, p))
+    return (
+        f'<div class="ss-prob" data-probability="{p:.4f}" style="display:flex;align-items:center;gap:4px;'
+        f'justify-content:center;font-size:11px;color:{MUTED}">'
+        f'<span style="display:inline-block;width:{width}px;height:7px;background:{RULE};border-radius:3px">'
+        f'<span style="display:block;width:{p * width:.1f}px;height:7px;background:{ACCENT};border-radius:3px">'
+        f"</span></span>{p:.3f}</div>"
+    )
+
+
+def suspects_html(solution) -> str:
+    """When the evidence conflicts: the observations most likely wrong, each with a bar."""
+    if not solution.suspects:
+        return ""
+    rows = "".join(
+        f"<li><b>{esc(oid)}</b> {esc(solution.project.observation(oid).describe())}{probability_bar_html(p)}</li>"
+        for oid, p in solution.suspects
+    )
+    return (
+        f'<div class="ss-suspects" style="font-size:12.5px;margin:4px 0">Most likely wrong (chance that the '
+        f'record is wrong, given the reliabilities and how well the rest agrees):<ul style="margin:2px 0">{rows}</ul></div>'
+    )
+
+
+def survivor_card(chain, open_centres=(), flags=(), probability: float | None = None) -> str:
+    """One candidate as a card: Fischer projection, name, systematic name, probability bar, flags."""
     name = display_name(chain)
     systematic = systematic_name(chain)
     sub = "" if systematic == name else f'<div style="color:{MUTED};font-size:11px">{esc(systematic)}</div>'
     flag_html = "".join(f'<div style="color:{CAUTION};font-size:11px">&#9873; {esc(f)}</div>' for f in flags)
+    if probability is not None:
+        sub += probability_bar_html(probability)
     return (
         f'<div class="ss-card" data-name="{esc(name)}" style="display:inline-block;vertical-align:top;margin:4px;'
         f"padding:4px 6px 6px 6px;border:1px solid {RULE};border-radius:6px;background:{PAPER};"
@@ -35,7 +63,7 @@ def survivor_card(chain, open_centres=(), flags=()) -> str:
 
 def survivors_html(solution, uid: str, limit: int = 24) -> str:
     """The survivors of ``uid`` as cards (at most ``limit`` drawn; the rest named)."""
-    survivors = solution.survivors[uid]
+    survivors = solution.ranked(uid)
     if not survivors:
         why = "the evidence is contradictory" if solution.contradictory else "no candidate fits"
         return f'<p style="font-family:{FONT};color:{MUTED}">No candidate survives: {esc(why)}.</p>'
@@ -43,7 +71,11 @@ def survivors_html(solution, uid: str, limit: int = 24) -> str:
         return residue_cards_html(solution, uid, limit)
     open_centres = disputed_centres(survivors)
     flags = solution.flags.get(uid, {})
-    cards = "".join(survivor_card(c, open_centres, flags.get(c, ())) for c in survivors[:limit])
+    probability = solution.probability if solution.probabilities else None
+    cards = "".join(
+        survivor_card(c, open_centres, flags.get(c, ()), probability(uid, c) if probability else None)
+        for c in survivors[:limit]
+    )
     rest = survivors[limit:]
     more = ""
     if rest:
@@ -100,6 +132,7 @@ def solution_html(solution, limit: int = 24) -> str:
             f'<div style="color:{MUTED};font-size:12px">What-if: switched off {esc(", ".join(solution.disabled))}</div>'
         )
     parts.append(conflicts_html(solution))
+    parts.append(suspects_html(solution))
     for uid in project.unknown_ids:
         parts.append(board_html(solution, uid, limit))
     if len(project.unknown_ids) > 1:

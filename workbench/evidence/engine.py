@@ -28,7 +28,8 @@ from workbench.chem.predictions import predict as record_of
 from workbench.evidence import tables
 from workbench.evidence.network import Binary, components, enumerate_solutions, find_solution, supported_domains
 from workbench.evidence.observations import Observation
-from workbench.evidence.outcomes import Verdict, fits, product_key
+from workbench.evidence.outcomes import Verdict, fits, passes, product_key
+from workbench.evidence.posterior import Posterior, joint_posterior, rank_suspects, unary_weights
 from workbench.evidence.project import Project
 from workbench.evidence.residue_outcomes import Choices, balance_constraints
 
@@ -70,6 +71,22 @@ class Solution:
     relief: dict[str, dict[str, tuple[Chain, ...]]]
     flags: dict[str, dict[Chain, tuple[str, ...]]]
     disabled: tuple[str, ...] = ()
+    # Contract 3: posterior over each unknown's survivors (sums to 1), its entropy in bits, how it was
+    # summed, the unary weights behind it, and the observations most likely wrong when they conflict.
+    probabilities: dict[str, dict[Chain, float]] = field(default_factory=dict)
+    entropy: dict[str, float] = field(default_factory=dict)
+    posterior_methods: dict[str, str] = field(default_factory=dict)
+    weights: dict[str, dict[Chain, float]] = field(default_factory=dict)
+    suspects: tuple[tuple[str, float], ...] = ()
+
+    def probability(self, uid: str, chain: Chain) -> float:
+        """Posterior probability of ``chain`` for unknown ``uid`` (0 when it did not survive)."""
+        return self.probabilities.get(uid, {}).get(chain, 0.0)
+
+    def ranked(self, uid: str) -> tuple[Chain, ...]:
+        """Survivors of ``uid``, most probable first (ties keep the catalogue order)."""
+        order = {c: i for i, c in enumerate(self.survivors[uid])}
+        return tuple(sorted(self.survivors[uid], key=lambda c: (-self.probability(uid, c), order[c])))
 
     @property
     def contradictory(self) -> bool:
@@ -263,7 +280,7 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
 def _kept(obs: Observation, chains: Sequence[Chain]) -> list[Chain]:
     """The candidates a unary observation keeps (through the outcome table where one applies)."""
     kept = tables.keep(obs, chains, fits)
-    return kept if kept is not None else [c for c in chains if fits(obs, c).fits]
+    return kept if kept is not None else [c for c in chains if passes(obs, c)]
 
 
 def _fixed_domains(fixed: dict) -> dict[str, list]:
@@ -520,6 +537,12 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
             if alt is not None:
                 relief[oid] = {u: tuple(alt[u]) for u in project.unknown_ids}
         final = {u: () for u in project.unknown_ids}
+    suspects: list[tuple[str, float]] = []
+    post = None
+    if conflicts:
+        suspects = _suspects(project, active, conflicts)
+    else:
+        post = _posterior(project, active, final, scope)
     return Solution(
         project=project,
         scope_counts={u: len(scope[u]) for u in project.unknown_ids},
@@ -529,7 +552,45 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
         relief=relief,
         flags={u: {c: tuple(v) for c, v in d.items() if c in set(final[u])} for u, d in flags.items()},
         disabled=off,
+        probabilities=post.probabilities if post else {},
+        entropy=post.entropy if post else {},
+        posterior_methods=post.methods if post else {},
+        weights=post.weights if post else {},
+        suspects=tuple(suspects),
     )
+
+
+# ------------------------------------------------------------------ probabilities (evidence/posterior.py)
+def _posterior(
+    project: Project,
+    observations: list[Observation],
+    survivors: Mapping[str, Sequence[Chain]],
+    scope: dict[str, list[Chain]] | None = None,
+    mixed: bool = True,
+) -> Posterior:
+    """The joint posterior over ``survivors`` (which must be consistent with ``observations``)."""
+
+    constraints, fixed = _relations(project, observations)
+    domains: dict[str, list[Chain]] = {u: list(survivors[u]) for u in project.unknown_ids}
+    domains.update(_fixed_domains(fixed))
+    weights = unary_weights(observations, {u: survivors[u] for u in project.unknown_ids}, mixed)
+    sizes = {u: len((scope or _scope_domains(project))[u]) for u in project.unknown_ids}
+    return joint_posterior(domains, weights, constraints, sizes)
+
+
+def _suspects(project: Project, active: list[Observation], conflicts: list[tuple[str, ...]]) -> list[tuple[str, float]]:
+    involved = {oid for c in conflicts for oid in c}
+    candidates = [o for o in active if o.id in involved]
+    scope = _scope_domains(project)
+
+    def evidence_without(dropped: frozenset[str]) -> float | None:
+        rest = [o for o in active if o.id not in dropped]
+        alt = _survivors(project, rest)
+        if alt is None:
+            return None
+        return _posterior(project, rest, alt, scope, mixed=False).log_evidence
+
+    return rank_suspects(candidates, evidence_without)
 
 
 def joint_worlds(solution: Solution, limit: int = 20000) -> dict[str, list[dict[str, Chain]]]:

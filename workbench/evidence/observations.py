@@ -7,6 +7,13 @@ Contract 1 of DESIGN.md; kinds added here extend it, never rename it.
 
 Units: periodate amounts in mol per mol substrate; rotations in
 deg mL g-1 dm-1 ([alpha]D, water, about 20 C); couplings in Hz.
+
+Uncertainty (Contract 3): every quantitative kind takes ``sigma``, the
+standard uncertainty of the measurement in its own unit, with a default per
+kind (:data:`DEFAULT_SIGMA`); a file that gives only the older ``tolerance``
+is read as ``sigma = tolerance / 2`` (the tolerance taken as a 95 %
+half-width). Every kind takes ``reliability`` (0 < r <= 1, absent: 1), the
+chance that the record itself is right.
 """
 
 from __future__ import annotations
@@ -20,6 +27,7 @@ from typing import TYPE_CHECKING, Any, ClassVar
 from workbench.errors import ObservationError
 
 __all__ = [
+    "DEFAULT_SIGMA",
     "FieldSpec",
     "Observation",
     "OBSERVATION_TYPES",
@@ -108,6 +116,29 @@ class Observation:
                 out.extend(value)
         return tuple(out)
 
+    @property
+    def effective_sigma(self) -> float | None:
+        """Standard uncertainty of a quantitative observation in its unit (None for the other kinds).
+
+        ``sigma`` when given; else half the older ``tolerance`` when given; else
+        the kind's default (:data:`DEFAULT_SIGMA`).
+        """
+        if self.KIND not in DEFAULT_SIGMA:
+            return None
+        sigma = getattr(self, "sigma", None)
+        if sigma is not None:
+            return float(sigma)
+        tolerance = getattr(self, "tolerance", None)
+        if tolerance is not None:
+            return float(tolerance) / 2
+        return DEFAULT_SIGMA[self.KIND]
+
+    @property
+    def effective_reliability(self) -> float:
+        """The chance that the record itself is right (``reliability``; absent: 1)."""
+        value = getattr(self, "reliability", None)
+        return 1.0 if value is None else float(value)
+
     def describe(self) -> str:
         """One line a chemist reads, e.g. ``E3 aldaric_acid U1: optically_active=False``."""
         vals = ", ".join(f"{k}={v}" for k, v in self.values().items() if v is not None)
@@ -115,7 +146,8 @@ class Observation:
 
 
 def _kind(kind: str, title: str, specs: tuple[FieldSpec, ...], unary: bool = True) -> type[Observation]:
-    """Make one frozen dataclass per kind from its field specs."""
+    """Make one frozen dataclass per kind from its field specs (every kind also takes ``reliability``)."""
+    specs = (*specs, _RELIABILITY)
     annotations: dict[str, Any] = {}
     namespace: dict[str, Any] = {
         "KIND": kind,
@@ -135,8 +167,49 @@ def _kind(kind: str, title: str, specs: tuple[FieldSpec, ...], unary: bool = Tru
 
 
 _UNKNOWN = FieldSpec("unknown", "unknown", "the unknown this result belongs to")
-_TOL_MOL = FieldSpec(
-    "tolerance", "float", "how far a measured amount may stray", required=False, default=0.2, unit="mol/mol", minimum=0
+
+# Default standard uncertainty of one measurement, per quantitative kind, in the kind's unit
+# [common practice]: periodate uptake and formic acid by titration about 0.1 mol/mol; a
+# polarimeter reading with the concentration and temperature it depends on about 2 deg; the
+# alpha share from integrating the anomeric 1H signals about 0.02; a coupling read from a 1D
+# 1H spectrum about 0.3 Hz (digital resolution and second-order effects).
+DEFAULT_SIGMA: dict[str, float] = {
+    "periodate": 0.1,
+    "specific_rotation": 2.0,
+    "anomer_ratio": 0.02,
+    "coupling_constant": 0.3,
+}
+
+
+def _sigma(unit: str) -> FieldSpec:
+    return FieldSpec(
+        "sigma",
+        "float",
+        "standard uncertainty of the measurement (absent: tolerance / 2, else the kind's default)",
+        required=False,
+        unit=unit,
+        minimum=1e-9,
+    )
+
+
+def _tolerance(unit: str) -> FieldSpec:
+    return FieldSpec(
+        "tolerance",
+        "float",
+        "older form of the uncertainty: a 95 % half-width, read as sigma = tolerance / 2",
+        required=False,
+        unit=unit,
+        minimum=0,
+    )
+
+
+_RELIABILITY = FieldSpec(
+    "reliability",
+    "float",
+    "chance that this record is right (a mislabelled vial, a misread scale); absent: 1",
+    required=False,
+    minimum=1e-6,
+    maximum=1,
 )
 
 OBSERVATION_TYPES: dict[str, type[Observation]] = {
@@ -206,7 +279,8 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
                 FieldSpec("formic_acid", "float", "HCOOH formed", unit="mol/mol", minimum=0),
                 FieldSpec("formaldehyde", "float", "HCHO formed", unit="mol/mol", minimum=0),
                 FieldSpec("co2", "float", "CO2 formed", required=False, unit="mol/mol", minimum=0),
-                _TOL_MOL,
+                _sigma("mol/mol"),
+                _tolerance("mol/mol"),
             ),
         ),
         _kind(
@@ -215,9 +289,8 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
             (
                 _UNKNOWN,
                 FieldSpec("value", "float", "equilibrium specific rotation", unit="deg mL g-1 dm-1"),
-                FieldSpec(
-                    "tolerance", "float", "allowed deviation", required=False, default=5.0, unit="deg", minimum=0
-                ),
+                _sigma("deg"),
+                _tolerance("deg"),
             ),
         ),
         _kind(
@@ -226,7 +299,8 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
             (
                 _UNKNOWN,
                 FieldSpec("alpha_fraction", "float", "alpha / (alpha + beta) pyranose", minimum=0, maximum=1),
-                FieldSpec("tolerance", "float", "allowed deviation", required=False, default=0.1, minimum=0),
+                _sigma(""),
+                _tolerance(""),
             ),
         ),
         _kind(
@@ -242,7 +316,8 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
                 ),
                 FieldSpec("pair", "text", "proton pair such as H1-H2"),
                 FieldSpec("value", "float", "coupling constant", unit="Hz", minimum=0, maximum=20),
-                FieldSpec("tolerance", "float", "allowed deviation", required=False, default=1.5, unit="Hz", minimum=0),
+                _sigma("Hz"),
+                _tolerance("Hz"),
             ),
         ),
         _kind(

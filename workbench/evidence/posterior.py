@@ -1,0 +1,372 @@
+"""Probabilities over the survivors: a posterior from the likelihoods, joint over linked unknowns.
+
+Contract 3 (DESIGN.md). The prior is uniform over each unknown's scope. Logic
+(unary outcomes and relations) keeps or removes; every quantitative
+observation weighs each surviving candidate by its likelihood, mixed with a
+flat likelihood by the observation's reliability
+(:func:`workbench.evidence.outcomes.weight`). A joint assignment of all
+unknowns that satisfies every relation has the product of its candidates'
+weights; the probability of a candidate is the sum over the assignments
+that contain it, normalised per unknown.
+
+How the sum is taken, per group of linked unknowns (known sugars named in a
+relation are one-value variables of the group):
+
+- one unknown alone: its weights, normalised;
+- relations forming a forest (after merging parallel relations between the
+  same two unknowns): exact sum-product message passing, two passes; each
+  message is a sum over the partner's candidates, found through the
+  relation's product index (identity of products, parent/child of a chain
+  extension or shortening) so it costs about the number of matching pairs;
+- relations with a cycle: exact enumeration of the joint assignments, up
+  to :data:`ENUMERATION_LIMIT`;
+- a joint space above that limit, or a relation without an index between
+  two domains whose product exceeds :data:`PAIR_LIMIT`: the unknowns of the
+  group keep their own weights (every survivor already belongs to some
+  consistent assignment, so only the relative weights are approximate) and
+  the method says ``approximate``.
+
+Cost: forests grow linearly with the number of linked unknowns (one message
+per relation and direction); enumeration grows with the number of joint
+assignments, which the logic usually keeps small.
+
+When the evidence conflicts, :func:`rank_suspects` weighs the hypotheses
+"exactly these observations are wrong" (at most two at a time) by the
+prior chance that each record is wrong (``1 - reliability``, at least
+:data:`MIN_WRONG` so that a record marked certain can still be suspected), the
+flat likelihood of a wrong record and the evidence of the remaining
+observations, and reports each observation's probability of being wrong.
+"""
+
+from __future__ import annotations
+
+import itertools
+import math
+from collections import defaultdict, deque
+from collections.abc import Callable, Hashable, Iterable, Mapping, Sequence
+from dataclasses import dataclass, field
+
+from workbench.chem.chain import Chain
+from workbench.evidence.network import Binary, components, enumerate_solutions
+from workbench.evidence.observations import Observation
+from workbench.evidence.outcomes import fits, flat_likelihood, weight
+
+__all__ = [
+    "ENUMERATION_LIMIT",
+    "MIN_WRONG",
+    "PAIR_LIMIT",
+    "Posterior",
+    "entropy_bits",
+    "joint_posterior",
+    "rank_suspects",
+    "unary_weights",
+]
+
+ENUMERATION_LIMIT = 50_000
+PAIR_LIMIT = 4_000_000
+MIN_WRONG = 0.01
+_MAX_DROPPED = 2
+
+Weights = dict[str, dict[Chain, float]]
+
+
+@dataclass(frozen=True)
+class Posterior:
+    """Per-unknown probabilities of the survivors, their entropy and the evidence.
+
+    ``log_evidence`` is the natural logarithm of the sum over consistent
+    joint assignments of the product of weights, divided by the number of
+    joint assignments of the scopes (the uniform prior). ``methods`` says
+    per unknown how its probabilities were summed; ``weights`` holds the
+    unary weights of every survivor the sum started from.
+    """
+
+    probabilities: dict[str, dict[Chain, float]]
+    entropy: dict[str, float]
+    log_evidence: float
+    methods: dict[str, str] = field(default_factory=dict)
+    weights: Weights = field(default_factory=dict)
+
+
+def entropy_bits(probabilities: Iterable[float]) -> float:
+    """Shannon entropy in bits of a normalised distribution."""
+    return -sum(p * math.log2(p) for p in probabilities if p > 0)
+
+
+def unary_weights(
+    observations: Sequence[Observation], survivors: Mapping[str, Sequence[Chain]], mixed: bool = True
+) -> Weights:
+    """Each survivor's weight: the product over unary observations of its (reliability-mixed) likelihood.
+
+    With ``mixed`` False the pure likelihoods are used (the record taken as
+    right), as the suspects ranking needs.
+    """
+    out: Weights = {u: dict.fromkeys(chains, 1.0) for u, chains in survivors.items()}
+    for obs in observations:
+        if not obs.UNARY or obs.unknown not in out:
+            continue
+        mine = out[obs.unknown]
+        for chain in mine:
+            verdict = fits(obs, chain)
+            mine[chain] *= weight(obs, verdict) if mixed else verdict.likelihood
+    return out
+
+
+# ------------------------------------------------------------------ pair factors
+@dataclass(frozen=True)
+class _Edge:
+    """All relations between two variables, as one 0/1 factor."""
+
+    a: str
+    b: str
+    parts: tuple[Binary, ...]
+
+    def holds(self, var: str, value: Chain, other: Chain) -> bool:
+        return all(c.holds(var, value, other) for c in self.parts)
+
+    def other(self, var: str) -> str:
+        return self.b if var == self.a else self.a
+
+    def tokens(self, var: str) -> tuple[Binary, Callable[[Chain], Iterable[Hashable]]] | None:
+        """A relation of this pair with an index on both ends, and the token function of ``var``'s end."""
+        for c in self.parts:
+            if c.tokens_a is not None and c.tokens_b is not None:
+                return c, (c.tokens_a if var == c.a else c.tokens_b)
+        return None
+
+
+def _edges(constraints: Sequence[Binary]) -> list[_Edge]:
+    groups: dict[frozenset[str], list[Binary]] = defaultdict(list)
+    for c in constraints:
+        groups[frozenset((c.a, c.b))].append(c)
+    return [_Edge(g[0].a, g[0].b, tuple(g)) for g in groups.values()]
+
+
+class _TooLarge(Exception):
+    """A message without an index over too many pairs."""
+
+
+def _message(edge: _Edge, source: str, belief: dict[Chain, float], target: list[Chain]) -> dict[Chain, float]:
+    """``m(y) = sum_x belief(x) [relation(x, y)]`` for every ``y`` of ``target``."""
+    out: dict[Chain, float] = {}
+    keyed = edge.tokens(source)
+    if keyed is not None:
+        relation, source_tokens = keyed
+        target_var = edge.other(source)
+        target_tokens = relation.tokens_a if target_var == relation.a else relation.tokens_b
+        assert target_tokens is not None
+        index: dict[Hashable, list[Chain]] = defaultdict(list)
+        for x, bx in belief.items():
+            if bx > 0:
+                for t in source_tokens(x):
+                    index[t].append(x)
+        for y in target:
+            seen: set[Chain] = set()
+            total = 0.0
+            for t in target_tokens(y):
+                for x in index.get(t, ()):
+                    if x not in seen:
+                        seen.add(x)
+                        if edge.holds(source, x, y):
+                            total += belief[x]
+            out[y] = total
+        return out
+    if len(belief) * len(target) > PAIR_LIMIT:
+        raise _TooLarge
+    for y in target:
+        out[y] = sum(bx for x, bx in belief.items() if bx > 0 and edge.holds(source, x, y))
+    return out
+
+
+def _normalised(message: dict[Chain, float]) -> tuple[dict[Chain, float], float]:
+    total = sum(message.values())
+    if total <= 0:
+        return message, 0.0
+    return {k: v / total for k, v in message.items()}, total
+
+
+def _forest(
+    group: list[str], domains: dict[str, list[Chain]], weights: Weights, edges: list[_Edge]
+) -> tuple[dict[str, dict[Chain, float]], float]:
+    """Exact marginals (unnormalised beliefs) and log Z of a tree-shaped group by sum-product."""
+    nbrs: dict[str, list[_Edge]] = defaultdict(list)
+    for e in edges:
+        nbrs[e.a].append(e)
+        nbrs[e.b].append(e)
+    root = group[0]
+    order: list[str] = []
+    parent: dict[str, tuple[str, _Edge] | None] = {root: None}
+    queue = deque([root])
+    while queue:
+        v = queue.popleft()
+        order.append(v)
+        for e in nbrs[v]:
+            u = e.other(v)
+            if u not in parent:
+                parent[u] = (v, e)
+                queue.append(u)
+    msgs: dict[tuple[str, str], dict[Chain, float]] = {}
+    log_scale = 0.0
+
+    def belief(v: str, skip: str | None) -> dict[Chain, float]:
+        b = dict(weights[v])
+        for e in nbrs[v]:
+            u = e.other(v)
+            if u == skip:
+                continue
+            m = msgs[(u, v)]
+            for x in b:
+                b[x] *= m.get(x, 0.0)
+        return b
+
+    for v in reversed(order[1:]):  # leaves to root
+        link = parent[v]
+        assert link is not None
+        p, e = link
+        m, scale = _normalised(_message(e, v, belief(v, p), domains[p]))
+        if scale <= 0:
+            return {}, float("-inf")
+        msgs[(v, p)] = m
+        log_scale += math.log(scale)
+    for v in order[1:]:  # root to leaves
+        link = parent[v]
+        assert link is not None
+        p, e = link
+        msgs[(p, v)], _ = _normalised(_message(e, p, belief(p, v), domains[v]))
+    beliefs = {v: belief(v, None) for v in group}
+    total = sum(beliefs[root].values())
+    if total <= 0:
+        return {}, float("-inf")
+    return beliefs, log_scale + math.log(total)
+
+
+def _enumerated(
+    group: list[str], domains: dict[str, list[Chain]], weights: Weights, constraints: list[Binary]
+) -> tuple[dict[str, dict[Chain, float]], float, int] | None:
+    worlds = enumerate_solutions({v: domains[v] for v in group}, constraints, ENUMERATION_LIMIT)
+    if worlds is None:
+        return None
+    beliefs: dict[str, dict[Chain, float]] = {v: dict.fromkeys(domains[v], 0.0) for v in group}
+    total = 0.0
+    for w in worlds:
+        product = 1.0
+        for v in group:
+            product *= weights[v][w[v]]
+        total += product
+        for v in group:
+            beliefs[v][w[v]] += product
+    if total <= 0:
+        return {}, float("-inf"), len(worlds)
+    return beliefs, math.log(total), len(worlds)
+
+
+def joint_posterior(
+    domains: dict[str, list[Chain]],
+    weights: Weights,
+    constraints: Sequence[Binary],
+    scope_sizes: dict[str, int],
+) -> Posterior:
+    """Probabilities of every unknown's survivors, joint over the relations (see the module docstring).
+
+    ``domains`` holds the survivors of every unknown and the one-value
+    variables ``=name`` of known sugars; ``weights`` the unary weights of the
+    unknowns' survivors (known sugars and auxiliary variables, which have
+    no weights, weigh 1 and are not reported); ``scope_sizes`` the number of
+    candidates of each unknown's scope (for the evidence).
+    """
+    full_weights: Weights = {v: weights.get(v) or dict.fromkeys(d, 1.0) for v, d in domains.items()}
+    cons = [c for c in constraints if c.a in domains and c.b in domains]
+    probabilities: dict[str, dict[Chain, float]] = {}
+    methods: dict[str, str] = {}
+    log_evidence = -sum(math.log(n) for n in scope_sizes.values() if n > 0)
+    for group in components(domains, cons):
+        members = set(group)
+        sub = [c for c in cons if c.a in members]
+        edges = _edges(sub)
+        method = "single unknown"
+        beliefs: dict[str, dict[Chain, float]] | None = None
+        log_z = 0.0
+        if not edges:
+            beliefs = {v: dict(full_weights[v]) for v in group}
+            log_z = sum(math.log(s) if (s := sum(beliefs[v].values())) > 0 else float("-inf") for v in group)
+        elif len(edges) == len(group) - 1:
+            try:
+                beliefs, log_z = _forest(group, domains, full_weights, edges)
+                method = "exact: sum-product on a forest of relations"
+            except _TooLarge:
+                beliefs = None
+        else:
+            found = _enumerated(group, domains, full_weights, sub)
+            if found is not None:
+                beliefs, log_z, count = found
+                method = f"exact: enumeration of {count} joint assignments"
+        if beliefs is None:
+            beliefs = {v: dict(full_weights[v]) for v in group}
+            log_z = sum(math.log(max(sum(b.values()), 1e-300)) for b in beliefs.values())
+            method = "approximate: joint space too large, each unknown weighed alone"
+        log_evidence += log_z
+        for v in group:
+            if v not in weights:
+                continue  # a known sugar or an auxiliary variable of a relation: not reported
+            b = beliefs.get(v, {})
+            total = sum(b.values())
+            probabilities[v] = (
+                {c: x / total for c, x in b.items()} if total > 0 else dict.fromkeys(domains[v], 1 / len(domains[v]))
+            )
+            methods[v] = method
+    return Posterior(
+        probabilities=probabilities,
+        entropy={u: entropy_bits(p.values()) for u, p in probabilities.items()},
+        log_evidence=log_evidence,
+        methods=methods,
+        weights={v: w for v, w in full_weights.items() if v in weights},
+    )
+
+
+# ------------------------------------------------------------------ suspects
+def rank_suspects(
+    candidates: Sequence[Observation],
+    evidence_without: Callable[[frozenset[str]], float | None],
+) -> list[tuple[str, float]]:
+    """``(observation id, probability that it is wrong)`` best first, for conflicting observations.
+
+    ``candidates`` are the observations in some minimal conflicting set;
+    ``evidence_without(dropped)`` returns the log evidence of the other
+    observations (taken as right), or None when they still conflict.
+    Hypotheses drop one observation, or two where no single one resolves
+    the conflict; each weighs ``prod (1 - r) * flat`` over the dropped,
+    ``prod r`` over the kept candidates, times the evidence of the rest.
+    """
+
+    def wrong(o: Observation) -> float:
+        return max(1.0 - o.effective_reliability, MIN_WRONG)
+
+    by_id = {o.id: o for o in candidates}
+    log_right = sum(math.log(1 - wrong(o)) for o in candidates)
+    hypotheses: list[tuple[frozenset[str], float]] = []
+    resolved: list[frozenset[str]] = []
+    for size in range(1, _MAX_DROPPED + 1):
+        for combo in itertools.combinations(by_id, size):
+            dropped = frozenset(combo)
+            if any(r <= dropped for r in resolved):
+                continue
+            log_rest = evidence_without(dropped)
+            if log_rest is None or log_rest == float("-inf"):
+                continue
+            resolved.append(dropped)
+            score = log_right + log_rest
+            for oid in dropped:
+                o = by_id[oid]
+                score += math.log(wrong(o)) - math.log(1 - wrong(o)) + math.log(flat_likelihood(o))
+            hypotheses.append((dropped, score))
+        if hypotheses:
+            break
+    if not hypotheses:
+        return []
+    top = max(s for _, s in hypotheses)
+    total = sum(math.exp(s - top) for _, s in hypotheses)
+    chance: dict[str, float] = defaultdict(float)
+    for dropped, s in hypotheses:
+        for oid in dropped:
+            chance[oid] += math.exp(s - top) / total
+    return sorted(((oid, p) for oid, p in chance.items()), key=lambda t: (-t[1], t[0]))
