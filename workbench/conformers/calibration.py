@@ -98,7 +98,7 @@ def sugar_class(chain: Chain) -> str:
     without data are ``other``.
     """
     groups = chain.groups
-    modified = any(g not in ("CHO", "CO", "CHOH", "CH2OH") for g in groups)
+    modified = _modified(chain)
     if chain.carbonyl == "aldose" and chain.carbons in (5, 6) and modified:
         if chain.has_nitrogen:
             return "amino" if set(groups) <= {"CHO", "CHOH", "CH2OH", "CHNH2"} else "other"
@@ -350,11 +350,23 @@ def _estimate(chain: Chain, quantity: str, model: float, clip: bool) -> Estimate
     return Estimate(quantity, value, entry.se, cls, model, entry.n, tuple(flags), from_memory=entry.from_memory)
 
 
+def _modified(chain: Chain) -> bool:
+    return any(g not in ("CHO", "CO", "CHOH", "CH2OH") for g in chain.groups)
+
+
 @cache
 def alpha_share_estimate(chain: Chain) -> Estimate | None:
-    """Alpha share of the pyranoses at equilibrium in water, calibrated (None: no pyranose)."""
+    """Alpha share of the pyranoses at equilibrium in water, calibrated.
+
+    None when no pyranose can form, and for a modified sugar whose class has
+    no published data: Angyal's scheme has no terms for NH2, NHAc, OMe or a
+    carboxyl, so its value would be the parent sugar's, which a modified
+    sugar never borrows.
+    """
     model = _alpha_share(chain)
     if model is None:
+        return None
+    if _modified(chain) and class_calibration("alpha_share", sugar_class(chain)) is None:
         return None
     return _estimate(chain, "alpha_share", model, clip=True)
 

@@ -168,11 +168,14 @@ def estimate(obs: Observation, chain: Chain) -> Any:
 
 
 def _physical(chain: Chain, obs: Observation) -> Any:
+    """A calibrated value, ``("sign", +1/-1)``, None (form impossible) or NO_PREDICTION (also uncalibrated)."""
     found = estimate(obs, chain)
     if found is None or found is NO_PREDICTION:
         return found
     if found.sign:
         return ("sign", found.sign)
+    if found.se is None:
+        return NO_PREDICTION  # shown by predict --json with its flag, but never used to tell candidates apart
     return float(found.value)
 
 
