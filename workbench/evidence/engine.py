@@ -465,7 +465,12 @@ def _gone(before: Sequence[Chain], after: Sequence[Chain]) -> tuple[Chain, ...]:
 
 def _flagged(obs: Observation, chains: Sequence[Chain]) -> list[tuple[Chain, Verdict]]:
     """The survivors of unary ``obs`` that are kept only with a flag, with their verdicts."""
-    if tables.observation_key(obs) is not None and obs.KIND not in tables.ESTIMATED and chains:
+    if (
+        tables.observation_key(obs) is not None
+        and obs.KIND not in tables.ESTIMATED
+        and chains
+        and isinstance(chains[0], Chain)
+    ):
         got, _ = tables.codes(tables.observation_key(obs) or "", chains)
         uniq, first = np.unique(got, return_index=True)
         flagged = {code for code, i in zip(uniq.tolist(), first.tolist(), strict=True) if fits(obs, chains[i]).flagged}

@@ -35,7 +35,7 @@ from workbench.chem.residue_periodate import SmithFragment, product_keys, residu
 from workbench.evidence import outcomes
 from workbench.evidence.network import Binary
 from workbench.evidence.observations import Observation
-from workbench.evidence.outcomes import Verdict
+from workbench.evidence.outcomes import REMOVAL_K, Verdict
 
 __all__ = [
     "Choices",
@@ -105,7 +105,8 @@ def fits(obs: Observation, residue: Residue) -> Any:
     """:class:`~workbench.evidence.outcomes.Verdict` of ``obs`` on ``residue``."""
     if not _is_residue_kind(obs):
         verdict = outcomes.fits(obs, residue.chain)
-        return Verdict(verdict.fits, f"{residue.sugar}: {verdict.reason}" if verdict.reason else "", verdict.flagged)
+        reason = f"{residue.sugar}: {verdict.reason}" if verdict.reason else ""
+        return Verdict(verdict.fits, reason, verdict.flagged, verdict.likelihood, verdict.z)
     kind = obs.KIND
     predicted = predict(obs, residue)  # the verdict depends on the residue only through this value
     if kind == "methylation_analysis":
@@ -130,7 +131,9 @@ def fits(obs: Observation, residue: Residue) -> Any:
             return Verdict(False, f"the residue is {predicted}, observed {obs.value}")
         return Verdict(True)
     observed_amounts = (obs.periodate, obs.formic_acid, obs.formaldehyde)
-    if all(abs(p - o) <= obs.tolerance + 1e-9 for p, o in zip(predicted, observed_amounts, strict=True)):
+    # counts are exact; the reading removes beyond REMOVAL_K standard uncertainties (Contract 3)
+    bound = REMOVAL_K * (obs.effective_sigma or 0.0)
+    if all(abs(p - o) <= bound + 1e-9 for p, o in zip(predicted, observed_amounts, strict=True)):
         return Verdict(True)
     return Verdict(
         False, f"predicted {outcome_label(kind, predicted)}, observed {outcome_label(kind, observed_amounts)}"
