@@ -176,3 +176,35 @@ def test_command_bad_csv_exits_2(tmp_path, capsys):
     path.write_text("time_min,specific_rotation\n0,1\n1,x\n")
     assert main(["mutarotation", str(path)]) == 2
     assert f"{path}, line 3" in capsys.readouterr().err
+
+
+def test_pure_noise_is_not_reported_as_a_fit():
+    # Gaussian noise (sd 49 deg, invented) around a constant: no first-order relaxation to find.
+    rng = np.random.default_rng(3)
+    t = np.arange(0.0, 300.0, 10.0)
+    with pytest.raises(FitError, match="no first-order relaxation"):
+        fit_mutarotation(t, 50.0 + rng.normal(0.0, 49.0, len(t)))
+
+
+@pytest.mark.parametrize(
+    "text",
+    [
+        "time_min,specific_rotation\n0," + "1" * 140_000 + "\n",  # a field over the csv module's 128 KB limit
+        "time_min,specific_rotation\n" + "".join(f"{k * 1e-320},{100 - k}\n" for k in range(6)),
+        "time_min,specific_rotation\n0,1\x00\n",
+    ],
+)
+def test_hostile_curve_files_exit_2(tmp_path, capsys, text):
+    path = tmp_path / "curve.csv"
+    path.write_text(text, encoding="utf-8")
+    assert main(["mutarotation", str(path)]) == 2
+    assert "Traceback" not in capsys.readouterr().err
+
+
+def test_non_finite_anomer_rotation_is_refused_not_printed_as_nan(tmp_path, capsys):
+    t, r = _glucose_curve()
+    path = tmp_path / "curve.csv"
+    path.write_text("time_min,specific_rotation\n" + "".join(f"{a},{b}\n" for a, b in zip(t, r, strict=True)))
+    assert main(["mutarotation", str(path), "--alpha", "nan", "--beta", "18.7", "--json"]) == 2
+    out, err = capsys.readouterr()
+    assert "NaN" not in out and "finite" in err

@@ -15,12 +15,24 @@ import sys
 from collections.abc import Callable, Sequence
 
 from workbench.errors import ContradictionError, WorkbenchError
+from workbench.escaping import json_text, terminal_text
 
 EXIT_OK, EXIT_BUG, EXIT_BAD_INPUT, EXIT_CONTRADICTION = 0, 1, 2, 3
 
 
 def _print_json(data: object) -> None:
-    print(json.dumps(data, indent=2, ensure_ascii=False))
+    """JSON on stdout (Contract 2); control, bidi and surrogate characters written as escapes."""
+    print(json_text(json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False)))
+
+
+def _say(text: object = "") -> None:
+    """A line for the terminal: text from project files cannot send escape sequences to it."""
+    print(terminal_text(text))
+
+
+def _warn(text: object) -> None:
+    """A message on stderr, escaped like :func:`_say`."""
+    print(terminal_text(f"stereosieve: {text}"), file=sys.stderr)
 
 
 # ----------------------------------------------------------------- predict
@@ -37,14 +49,14 @@ def _cmd_predict(args: argparse.Namespace) -> int:
         if args.json:
             _print_json(data)
         else:
-            print(compound_text(data))
+            _say(compound_text(data))
         return EXIT_OK
     if args.json:
         data = identity_json(chain)
         data["predictions"] = predict_json(chain)
         _print_json(data)
     else:
-        print(predict_text(chain))
+        _say(predict_text(chain))
     return EXIT_OK
 
 
@@ -63,11 +75,11 @@ def _cmd_catalogue(args: argparse.Namespace) -> int:
     if args.json:
         _print_json({"scope": scope.to_dict(), "count": len(members), "members": [identity_json(c) for c in members]})
         return EXIT_OK
-    print(f"{len(members)} candidates in scope {scope.to_dict()}")
-    print(f"{'#':>5}  {'name':<38} {'systematic name':<48} formula")
+    _say(f"{len(members)} candidates in scope {scope.to_dict()}")
+    _say(f"{'#':>5}  {'name':<38} {'systematic name':<48} formula")
     for i, c in enumerate(members, 1):
         row = identity_json(c)
-        print(f"{i:>5}  {row['name']:<38} {row['systematic_name']:<48} {c.formula}")
+        _say(f"{i:>5}  {row['name']:<38} {row['systematic_name']:<48} {c.formula}")
     return EXIT_OK
 
 
@@ -82,7 +94,7 @@ def _cmd_solve(args: argparse.Namespace) -> int:
     if args.json:
         _print_json(solution_json(solution))
     else:
-        print(solution_text(solution))
+        _say(solution_text(solution))
     return EXIT_CONTRADICTION if solution.contradictory else EXIT_OK
 
 
@@ -91,10 +103,10 @@ def _cmd_validate(args: argparse.Namespace) -> int:
     from workbench.evidence.project import load_project
 
     project = load_project(args.project)
-    print(f"{args.project}: valid stereosieve project '{project.title}'")
+    _say(f"{args.project}: valid stereosieve project '{project.title}'")
     for u in project.unknowns:
-        print(f"  unknown {u.id}: {len(catalogue(u.scope))} candidates in scope {u.scope.to_dict()}")
-    print(f"  {len(project.observations)} observation(s)")
+        _say(f"  unknown {u.id}: {len(catalogue(u.scope))} candidates in scope {u.scope.to_dict()}")
+    _say(f"  {len(project.observations)} observation(s)")
     return EXIT_OK
 
 
@@ -109,7 +121,7 @@ def _cmd_plan(args: argparse.Namespace) -> int:
     if args.json:
         _print_json(result.to_dict())
     else:
-        print(plan_text(result))
+        _say(plan_text(result))
     return EXIT_CONTRADICTION if result.contradictory else EXIT_OK
 
 
@@ -126,9 +138,9 @@ def _cmd_demo(args: argparse.Namespace) -> int:
     if args.json:
         _print_json(solution_json(solution))
     else:
-        print("stereosieve demo: an invented project, solved step by step\n")
-        print(solution_text(solution))
-        print("\nTry it yourself: 'stereosieve lab' opens this project in the notebook workbench.")
+        _say("stereosieve demo: an invented project, solved step by step\n")
+        _say(solution_text(solution))
+        _say("\nTry it yourself: 'stereosieve lab' opens this project in the notebook workbench.")
     return EXIT_OK
 
 
@@ -147,10 +159,10 @@ def _cmd_report(args: argparse.Namespace) -> int:
 
         plan_result = plan(project, solution=solution, limit=args.top)
     target = write_report(render_report(project, solution, plan_result), args.output, protect=(args.project,))
-    print(f"report written to {target}")
+    _say(f"report written to {target}")
     if solution.contradictory:
         sets = "; ".join("{" + ", ".join(c) + "}" for c in solution.conflicts)
-        print(f"stereosieve: the evidence is contradictory: {sets} (the report explains the conflict)", file=sys.stderr)
+        _warn(f"the evidence is contradictory: {sets} (the report explains the conflict)")
         return EXIT_CONTRADICTION
     return EXIT_OK
 
@@ -165,7 +177,7 @@ def _write_or_print(text: str, output: str | None, protect: tuple[str, ...], wha
         return
     target = check_output(output, protect, what=what, example=example)
     written = write_text_atomic(target, text)
-    print(f"{what} written to {written}", file=sys.stderr)
+    print(terminal_text(f"{what} written to {written}"), file=sys.stderr)
 
 
 def _cmd_export(args: argparse.Namespace) -> int:
@@ -179,28 +191,17 @@ def _cmd_export(args: argparse.Namespace) -> int:
     solution = solve(load_project(args.project))
     if solution.contradictory:
         sets = "; ".join("{" + ", ".join(c) + "}" for c in solution.conflicts)
-        print(f"stereosieve: the evidence is contradictory: {sets}; nothing survives to export", file=sys.stderr)
+        _warn(f"the evidence is contradictory: {sets}; nothing survives to export")
         return EXIT_CONTRADICTION
     _write_or_print(export_text(solution, args.format), args.output, (args.project,), "export", "survivors.sdf")
     return EXIT_OK
 
 
 def _read_json(path: str) -> object:
-    """A parsed JSON file; :class:`ProjectError` naming the file when it cannot be read or parsed."""
-    from pathlib import Path
+    """A parsed JSON file under the input guard; :class:`ProjectError` naming the file when it cannot be used."""
+    from workbench.inputs import read_project_json
 
-    from workbench.errors import ProjectError
-
-    try:
-        return json.loads(Path(path).read_text(encoding="utf-8"))
-    except FileNotFoundError as err:
-        raise ProjectError(path, ["no such file"]) from err
-    except UnicodeDecodeError as err:
-        raise ProjectError(path, [f"not UTF-8 text ({err.reason} at byte {err.start})"]) from err
-    except json.JSONDecodeError as err:
-        raise ProjectError(path, [f"malformed JSON at line {err.lineno}, column {err.colno}: {err.msg}"]) from err
-    except OSError as err:
-        raise ProjectError(path, [f"cannot read the file: {err.strerror}"]) from err
+    return read_project_json(path)
 
 
 def _cmd_merge(args: argparse.Namespace) -> int:
@@ -212,9 +213,9 @@ def _cmd_merge(args: argparse.Namespace) -> int:
     merged = merge_projects(_read_json(args.first), _read_json(args.second), (args.first, args.second))
     written = write_text_atomic(target, dumps_project(merged.project))
     for note in merged.notes:
-        print(f"note: {note}")
+        _say(f"note: {note}")
     project = merged.project
-    print(
+    _say(
         f"merged {args.first} and {args.second} into {written}: {len(project.unknowns)} unknown(s), "
         f"{len(project.observations)} observation(s); {len(merged.shared)} kept once, "
         f"{len(merged.added)} added from {args.second}"
@@ -236,9 +237,9 @@ def _cmd_lab(args: argparse.Namespace) -> int:
 
     files = prepare_lab(args.project, directory=args.dir)
     for path in files.created:
-        print(f"created {path}")
-    print(f"project  {files.project}")
-    print(f"notebook {files.notebook}")
+        _say(f"created {path}")
+    _say(f"project  {files.project}")
+    _say(f"notebook {files.notebook}")
     if args.prepare_only:
         return EXIT_OK
     code = launch_lab(files.notebook, browser=not args.no_browser, port=args.port, extra=args.passthrough)
@@ -250,8 +251,8 @@ def _cmd_app(args: argparse.Namespace) -> int:
 
     project, created = prepare_project(args.project, directory=args.dir)
     for path in created:
-        print(f"created {path}")
-    print(f"project  {project}")
+        _say(f"created {path}")
+    _say(f"project  {project}")
     code = launch_app(project, browser=not args.no_browser, port=args.port, extra=args.passthrough)
     return EXIT_OK if code == 0 else EXIT_BUG
 
@@ -287,22 +288,22 @@ def _cmd_mutarotation(args: argparse.Namespace) -> int:
     if args.json:
         _print_json(data)
         return EXIT_OK
-    print(f"mutarotation fit of {curve.source} ({fit.points} points, first-order approach to equilibrium)")
-    print(f"  rate_constant_per_min  {fit.rate_constant_per_min:.5g}")
-    print(f"  half_life_min          {fit.half_life_min:.4g}")
-    print(f"  initial_rotation       {fit.initial_rotation:.2f}")
-    print(f"  equilibrium_rotation   {fit.equilibrium_rotation:.2f}")
-    print(f"  rmse                   {fit.rmse:.3g}")
+    _say(f"mutarotation fit of {curve.source} ({fit.points} points, first-order approach to equilibrium)")
+    _say(f"  rate_constant_per_min  {fit.rate_constant_per_min:.5g}")
+    _say(f"  half_life_min          {fit.half_life_min:.4g}")
+    _say(f"  initial_rotation       {fit.initial_rotation:.2f}")
+    _say(f"  equilibrium_rotation   {fit.equilibrium_rotation:.2f}")
+    _say(f"  rmse                   {fit.rmse:.3g}")
     if fit.beta_fraction is not None:
-        print(
+        _say(
             f"  beta_fraction          {fit.beta_fraction:.3f}  (two-state model, alpha {alpha:+.1f}, beta {beta:+.1f})"
         )
         if rotation_source:
-            print(f"  anomer rotations from  {rotation_source}")
+            _say(f"  anomer rotations from  {rotation_source}")
     elif sugar is not None:
-        print(f"  beta_fraction          unknown: no published alpha and beta rotations for {sugar}")
+        _say(f"  beta_fraction          unknown: no published alpha and beta rotations for {sugar}")
     else:
-        print("  beta_fraction          unknown: give --alpha and --beta, or --sugar NAME")
+        _say("  beta_fraction          unknown: give --alpha and --beta, or --sugar NAME")
     return EXIT_OK
 
 
@@ -432,13 +433,13 @@ def main(argv: Sequence[str] | None = None) -> int:
         sys.stdout = open(os.devnull, "w")  # noqa: SIM115 - keep Python from complaining at exit
         return EXIT_OK
     except ContradictionError as err:
-        print(f"stereosieve: {err}", file=sys.stderr)
+        _warn(err)
         return EXIT_CONTRADICTION
     except WorkbenchError as err:
-        print(f"stereosieve: {err}", file=sys.stderr)
+        _warn(err)
         return EXIT_BAD_INPUT
     except (OSError, UnicodeDecodeError) as err:
-        print(f"stereosieve: {err}", file=sys.stderr)
+        _warn(err)
         return EXIT_BAD_INPUT
 
 

@@ -14,6 +14,7 @@ highest-numbered stereocentre (right = D).
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from dataclasses import dataclass
 from functools import cached_property
 
@@ -26,7 +27,19 @@ __all__ = [
     "LEFT",
     "Chain",
     "Group",
+    "register_svg_renderer",
 ]
+
+# The display layer registers its Fischer-projection drawer here on import, so
+# that the structure model draws itself in a notebook without importing the
+# display layer (the dependencies point downwards only).
+_svg_renderer: Callable[[Chain], str] | None = None
+
+
+def register_svg_renderer(renderer: Callable[[Chain], str] | None) -> None:
+    """Set the function that draws a :class:`Chain` as SVG for ``_repr_svg_`` (None: no drawing)."""
+    global _svg_renderer
+    _svg_renderer = renderer
 
 RIGHT = "right"
 LEFT = "left"
@@ -230,10 +243,9 @@ class Chain:
     def __str__(self) -> str:
         return self.pattern
 
-    def _repr_svg_(self) -> str:
-        from workbench.display.fischer import chain_svg
-
-        return chain_svg(self)
+    def _repr_svg_(self) -> str | None:
+        """The Fischer projection drawn by the renderer the display layer registered (None before)."""
+        return None if _svg_renderer is None else _svg_renderer(self)
 
     @classmethod
     def from_pattern(cls, text: str) -> Chain:

@@ -18,7 +18,8 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import TYPE_CHECKING
 
-from workbench.errors import CurveFileError
+from workbench.errors import CurveFileError, ProjectError
+from workbench.inputs import read_guarded_text
 
 if TYPE_CHECKING:
     import pandas as pd
@@ -111,11 +112,16 @@ def parse_curve(text: str, source: str = "<text>") -> Curve:
     """A :class:`Curve` from CSV text; ``source`` names it in error messages."""
     import pandas as pd
 
-    rows = [
-        (number, row)
-        for number, row in enumerate(csv.reader(io.StringIO(text), skipinitialspace=True), start=1)
-        if row and any(cell.strip() for cell in row) and not row[0].lstrip().startswith("#")
-    ]
+    if "\x00" in text:
+        raise CurveFileError(source, None, "the file holds NUL characters; it is not a CSV text file")
+    try:
+        rows = [
+            (number, row)
+            for number, row in enumerate(csv.reader(io.StringIO(text), skipinitialspace=True), start=1)
+            if row and any(cell.strip() for cell in row) and not row[0].lstrip().startswith("#")
+        ]
+    except csv.Error as err:  # e.g. a field over the csv module's 128 KB limit
+        raise CurveFileError(source, None, f"not a readable CSV file ({err})") from None
     if not rows:
         raise CurveFileError(source, None, f"the file is empty; expected a header {','.join(REQUIRED_COLUMNS)}")
     header_line, header = rows[0]
@@ -138,12 +144,10 @@ def parse_curve(text: str, source: str = "<text>") -> Curve:
 
 
 def read_curve(path: str | Path) -> Curve:
-    """Read a time-course CSV file (UTF-8)."""
+    """Read a time-course CSV file (UTF-8, a byte-order mark allowed; the input guard's file-type and size limits)."""
     p = Path(path)
     try:
-        text = p.read_text(encoding="utf-8-sig")
-    except FileNotFoundError:
-        raise CurveFileError(str(p), None, "no such file") from None
-    except UnicodeDecodeError as err:
-        raise CurveFileError(str(p), None, f"not UTF-8 text ({err.reason})") from None
+        text = read_guarded_text(p, str(p), what="curve files")
+    except ProjectError as err:
+        raise CurveFileError(str(p), None, "; ".join(err.problems)) from None
     return parse_curve(text, str(p))

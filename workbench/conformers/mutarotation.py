@@ -32,12 +32,16 @@ __all__ = [
 ]
 
 _MIN_POINTS = 4
+_MIN_SPAN_MIN = 1e-6  # a course shorter than this (minutes) cannot show a relaxation
+_MAX_RELATIVE_K_ERROR = 0.5  # a rate constant less certain than +/-50 % is no fit
+_MAX_RMSE_SHARE = 0.25  # residuals above a quarter of the change fitted mean no first-order curve
 
 
 def first_order_curve(t: np.ndarray | Sequence[float], initial: float, equilibrium: float, k: float) -> np.ndarray:
     """Rotation (deg mL g-1 dm-1) at times ``t`` (min) for rate constant ``k`` (per min)."""
     tt = np.asarray(t, dtype=float)
-    return equilibrium + (initial - equilibrium) * np.exp(-k * tt)
+    with np.errstate(over="ignore", under="ignore"):
+        return equilibrium + (initial - equilibrium) * np.exp(-k * tt)
 
 
 @dataclass(frozen=True)
@@ -115,6 +119,11 @@ def _validate(times_min: Sequence[float], rotations: Sequence[float]) -> tuple[n
         raise FitError(f"times must be minutes from dissolution (>= 0); found {float(t.min())}")
     if len(np.unique(t)) < 3:
         raise FitError("at least three distinct times are needed to fit a rate constant")
+    if float(t.max() - t.min()) < _MIN_SPAN_MIN:
+        raise FitError(f"the times span less than {_MIN_SPAN_MIN:g} min; give minutes from dissolution")
+    scale = float(np.max(np.abs(r)))
+    if scale > 1e9:
+        raise FitError(f"rotations up to {scale:.3g} are not specific rotations (deg mL g-1 dm-1)")
     return t, r
 
 
@@ -135,6 +144,36 @@ def _grid_start(t: np.ndarray, r: np.ndarray) -> tuple[float, float, float]:
     return best[1], best[2], best[3]
 
 
+def _check_quality(t: np.ndarray, initial: float, equilibrium: float, k: float, rmse: float, k_error: float | None) -> None:
+    """Refuse a fit that does not describe a first-order relaxation (FitError says which criterion failed).
+
+    Criteria: (1) the relaxation must be resolved by the sampling: k times the
+    smallest time step below 5 (else the curve has relaxed between two points
+    and k is bounded only by the grid); (2) the covariance must give k a
+    standard error under 50 % of k; (3) the rmse must be under a quarter of
+    the fitted change |initial - equilibrium|. Pure noise fails (2) or (3).
+    """
+    steps = np.diff(np.unique(t))
+    step = float(steps.min()) if len(steps) else float(t.max() - t.min())
+    change = abs(initial - equilibrium)
+    if k * step > 5.0:
+        raise FitError(
+            f"no first-order relaxation resolved: the fitted change is over within one time step "
+            f"(k = {k:.3g}/min, step {step:g} min); measure earlier and more often"
+        )
+    if k_error is None or not math.isfinite(k_error) or k_error > _MAX_RELATIVE_K_ERROR * k:
+        shown = "undetermined" if k_error is None or not math.isfinite(k_error) else f"+/- {k_error:.3g}"
+        raise FitError(
+            f"no first-order relaxation found: the rate constant is {shown} for k = {k:.3g}/min "
+            f"(more than {_MAX_RELATIVE_K_ERROR:.0%} uncertain)"
+        )
+    if not change > 0 or rmse > _MAX_RMSE_SHARE * change:
+        raise FitError(
+            f"no first-order relaxation found: the scatter (rmse {rmse:.3g}) is large beside the fitted change "
+            f"({change:.3g}); the curve looks like noise"
+        )
+
+
 def fit_mutarotation(
     times_min: Sequence[float],
     rotations: Sequence[float],
@@ -147,10 +186,15 @@ def fit_mutarotation(
     rotations (deg mL g-1 dm-1). ``alpha`` and ``beta`` (the pure anomers'
     rotations), if both given, yield the equilibrium beta fraction.
     Raises :class:`~workbench.errors.FitError` on bad input or when the data
-    show no first-order relaxation.
+    show no first-order relaxation (criteria in :func:`_check_quality`).
     """
     if (alpha is None) != (beta is None):
         raise FitError("give both the alpha and the beta rotation, or neither")
+    for name, value in (("alpha", alpha), ("beta", beta)):
+        if value is not None and not (math.isfinite(value) and abs(value) < 1e4):
+            raise FitError(f"the {name} anomer's rotation must be a finite number of degrees, got {value}")
+    if alpha is not None and alpha == beta:
+        raise FitError("the alpha and beta rotations are equal; the two-state model needs them to differ")
     t, r = _validate(times_min, rotations)
     if float(np.ptp(r)) == 0.0:
         raise FitError("the rotation does not change: the curve shows no mutarotation to fit")
@@ -175,6 +219,7 @@ def fit_mutarotation(
     residual = first_order_curve(t, initial, equilibrium, k) - r
     rmse = float(np.sqrt(np.mean(residual**2)))
     errors = np.sqrt(np.diag(pcov)) if np.all(np.isfinite(pcov)) else None
+    _check_quality(t, initial, equilibrium, k, rmse, None if errors is None else float(errors[2]))
     return MutarotationFit(
         rate_constant_per_min=k,
         rate_constant_stderr=None if errors is None else float(errors[2]),

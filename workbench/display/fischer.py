@@ -14,7 +14,7 @@ import re
 from collections.abc import Iterable
 from dataclasses import dataclass
 
-from workbench.chem.chain import LEFT, RIGHT, Chain
+from workbench.chem.chain import LEFT, RIGHT, Chain, register_svg_renderer
 from workbench.display.palette import FONT, HYDROGEN, INK, MUTED, NITROGEN, OPEN_CENTRE, OXYGEN, esc
 
 __all__ = [
@@ -258,3 +258,6 @@ def fischer_svg(
 def chain_svg(chain: Chain) -> str:
     """The Fischer projection of ``chain`` captioned with its name (what ``Chain`` shows in a notebook)."""
     return fischer_svg(chain, caption=caption_of(chain))
+
+
+register_svg_renderer(chain_svg)  # a Chain draws itself in a notebook once the display layer is imported

@@ -9,7 +9,7 @@ of the palette is stereosieve's own.
 
 from __future__ import annotations
 
-import html
+from workbench.escaping import html_text
 
 __all__ = [
     "FONT",
@@ -58,8 +58,8 @@ STATUS_COLOURS = {"applied": ACCENT, "disabled": "#9aa3ab", "contradicts": CONFL
 
 
 def esc(value: object) -> str:
-    """HTML-escaped text of ``value`` (quotes included)."""
-    return html.escape(str(value), quote=True)
+    """HTML-escaped text of ``value`` (quotes included; see :func:`workbench.escaping.html_text`)."""
+    return html_text(value)
 
 
 def badge(text: str, colour: str, background: str = "#ffffff") -> str:

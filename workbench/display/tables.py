@@ -139,9 +139,9 @@ def ledger_html(project, solution=None) -> str:
 def trail_html(solution) -> str:
     """Candidates left per unknown after each observation, as a table."""
     ids = list(solution.project.unknown_ids)
-    rows = [["scope", ""] + [str(solution.scope_counts[u]) for u in ids]]
+    rows = [["scope", ""] + [str(solution.scope_counts[u]) for u in ids]]  # cells are trusted HTML: escape text
     for step in solution.trail:
-        rows.append([step.observation, _status_badge(step.status)] + [str(step.counts[u]) for u in ids])
+        rows.append([esc(step.observation), _status_badge(step.status)] + [str(step.counts[u]) for u in ids])
     return table_html(["after", "status"] + ids, rows, cls="ss-trail", raw=True)
 
 

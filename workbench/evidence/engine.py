@@ -5,8 +5,9 @@ become binary constraints (:mod:`workbench.evidence.network`). Survivors are
 exactly the candidates that occur in at least one assignment of all unknowns
 satisfying every observation. The trail replays the observations in order and
 records what each one eliminated; when the evidence is contradictory, minimal
-conflicting sets of observations are found by deletion (each set is a
-minimal unsatisfiable subset: drop any one member and the rest can hold).
+conflicting sets of observations are found by divide and conquer in
+:mod:`workbench.evidence.conflicts` (each set is a minimal unsatisfiable
+subset: drop any one member and the rest can hold).
 """
 
 from __future__ import annotations
@@ -25,7 +26,9 @@ from workbench.chem.catalogue import catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.predictions import predict as record_of
+from workbench.chem.smiles import mirror_smiles
 from workbench.evidence import tables
+from workbench.evidence.conflicts import conflict_sets
 from workbench.evidence.network import Binary, components, enumerate_solutions, find_solution, supported_domains
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import Verdict, fits, passes, product_key
@@ -39,7 +42,6 @@ if TYPE_CHECKING:
 __all__ = ["TrailStep", "Solution", "solve", "constraints_of", "unary_domains", "is_consistent", "joint_worlds"]
 
 log = logging.getLogger(__name__)
-_MAX_CONFLICT_SETS = 6
 
 
 @dataclass(frozen=True)
@@ -192,6 +194,22 @@ def _doubtful_members(
                     yield uid, c, why
 
 
+@functools.cache
+def _mirror_key(reaction: str, chain: Chain) -> frozenset[str]:
+    """Canonical SMILES of the mirror images of the products of ``reaction`` (empty if none forms)."""
+    return frozenset(mirror_smiles(x) for x in product_key(reaction, chain) or ())
+
+
+@functools.cache
+def _gives(reaction: str):
+    """A test: does the compound give a product of ``reaction`` at all, or a doubtful one (every relation needs one)."""
+
+    def test(c: Chain) -> bool:
+        return product_key(reaction, c) is not None or _doubtful(reaction, c)
+
+    return test
+
+
 def _product_test(reaction: str, relation: str):
     def test(x: Chain, y: Chain) -> bool:
         kx, ky = product_key(reaction, x), product_key(reaction, y)
@@ -220,7 +238,7 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
     if kind == "same_product":
         names = [ref(m) for m in obs.members]
         test = _product_test(obs.reaction, obs.relation)
-        tokens = None
+        tokens = mirrored = None
         scopes = [project.unknown(m).scope for m in obs.members if m in project.unknown_ids]
         wild = any(_doubtful(obs.reaction, c) for s in scopes for c in catalogue(s))
         wild = wild or any(_doubtful(obs.reaction, c) for c in fixed.values())
@@ -229,11 +247,20 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
             def tokens(c: Chain, r: str = obs.reaction):
                 return product_key(r, c) or ()
 
+        elif obs.relation == "enantiomeric" and not wild:  # index the mirror images: no scan of every pair
+
+            def tokens(c: Chain, r: str = obs.reaction):
+                return product_key(r, c) or ()
+
+            def mirrored(c: Chain, r: str = obs.reaction):
+                return _mirror_key(r, c)
+
         # one product per compound: identity is transitive, so a chain of pairs says it all
         transitive = obs.relation == "identical" and obs.reaction != "alditol"
         pairs = list(itertools.pairwise(names)) if transitive else list(itertools.combinations(names, 2))
         for a, b in pairs:
-            out.append(Binary(a, b, test, obs.id, tokens, tokens))
+            other_tokens = tokens if mirrored is None else mirrored
+            out.append(Binary(a, b, test, obs.id, tokens, other_tokens, _gives(obs.reaction)))
     elif kind == "different":
         names = [ref(m) for m in obs.members]
         for a, b in itertools.combinations(names, 2):
@@ -340,39 +367,9 @@ def is_consistent(project: Project, observations: Iterable[Observation]) -> bool
 
 
 # ------------------------------------------------------------------ conflicts
-def _minimal_conflict(project: Project, observations: list[Observation]) -> list[Observation]:
-    """Deletion-based minimal unsatisfiable subset of ``observations`` (which must be inconsistent)."""
-    core = list(observations)
-    i = 0
-    while i < len(core):
-        trial = core[:i] + core[i + 1 :]
-        if not is_consistent(project, trial):
-            core = trial
-        else:
-            i += 1
-    return core
-
-
 def _conflict_sets(project: Project, observations: list[Observation]) -> list[tuple[str, ...]]:
-    """Several minimal conflicting sets (each a minimal unsatisfiable subset)."""
-    found: list[tuple[str, ...]] = []
-    first = _minimal_conflict(project, observations)
-    found.append(tuple(o.id for o in first))
-    frontier = [[o.id] for o in first]
-    seen_blocks: set[frozenset[str]] = set()
-    while frontier and len(found) < _MAX_CONFLICT_SETS:
-        block = frozenset(frontier.pop(0))
-        if block in seen_blocks or len(block) > 3:
-            continue
-        seen_blocks.add(block)
-        rest = [o for o in observations if o.id not in block]
-        if is_consistent(project, rest):
-            continue
-        core = tuple(o.id for o in _minimal_conflict(project, rest))
-        if core not in found:
-            found.append(core)
-        frontier += [sorted(block | {oid}) for oid in core]
-    return found
+    """Several minimal conflicting sets (see :mod:`workbench.evidence.conflicts`)."""
+    return conflict_sets(observations, lambda obs: is_consistent(project, obs), key=lambda o: o.id)
 
 
 # ------------------------------------------------------------------ solving

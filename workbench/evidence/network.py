@@ -15,7 +15,7 @@ witnesses found earlier so most values are confirmed without a new search.
 from __future__ import annotations
 
 from collections import defaultdict
-from collections.abc import Callable, Hashable, Iterable
+from collections.abc import Callable, Hashable, Iterable, Iterator
 from dataclasses import dataclass
 
 from workbench.chem.chain import Chain
@@ -31,7 +31,10 @@ class Binary:
 
     ``tokens_a``/``tokens_b``, when given, map a value to hashable tokens such
     that the test can only hold when the token sets intersect; they let the
-    solver find supports through an index instead of a scan.
+    solver find supports through an index instead of a scan. ``viable``, when
+    given, is a test every value at either end must pass for the constraint to
+    hold at all (e.g. "gives the product"); values failing it are dropped
+    without a scan.
     """
 
     a: str
@@ -40,6 +43,7 @@ class Binary:
     source: str
     tokens_a: Callable[[Chain], Iterable[Hashable]] | None = None
     tokens_b: Callable[[Chain], Iterable[Hashable]] | None = None
+    viable: Callable[[Chain], bool] | None = None
 
     def holds(self, var: str, value: Chain, other: Chain) -> bool:
         """The test with ``value`` for ``var`` (either end) and ``other`` for the other end."""
@@ -57,16 +61,20 @@ def _revise(domains: Domains, var: str, c: Binary) -> bool:
     mine_tokens = c.tokens_a if var == c.a else c.tokens_b
     their_tokens = c.tokens_b if var == c.a else c.tokens_a
     kept: list[Chain] = []
+    mine = domains[var]
+    if c.viable is not None:
+        others = [y for y in others if c.viable(y)]
+        mine = [x for x in mine if c.viable(x)] if others else []
     if mine_tokens is not None and their_tokens is not None:
         index: dict[Hashable, list[Chain]] = defaultdict(list)
         for y in others:
             for t in their_tokens(y):
                 index[t].append(y)
-        for x in domains[var]:
+        for x in mine:
             if any(c.holds(var, x, y) for t in mine_tokens(x) for y in index.get(t, ())):
                 kept.append(x)
     else:
-        for x in domains[var]:
+        for x in mine:
             if any(c.holds(var, x, y) for y in others):
                 kept.append(x)
     changed = len(kept) != len(domains[var])
@@ -74,13 +82,31 @@ def _revise(domains: Domains, var: str, c: Binary) -> bool:
     return changed
 
 
-def arc_consistent(domains: Domains, constraints: list[Binary]) -> bool:
-    """AC-3 in place; False when a domain becomes empty."""
+def _by_var(constraints: list[Binary]) -> dict[str, list[Binary]]:
     by_var: dict[str, list[Binary]] = defaultdict(list)
     for c in constraints:
         by_var[c.a].append(c)
         by_var[c.b].append(c)
-    queue = [(c.a, c) for c in constraints] + [(c.b, c) for c in constraints]
+    return by_var
+
+
+def arc_consistent(
+    domains: Domains,
+    constraints: list[Binary],
+    changed: str | None = None,
+    by_var: dict[str, list[Binary]] | None = None,
+) -> bool:
+    """AC-3 in place; False when a domain becomes empty.
+
+    With ``changed``, the domains are taken to be arc consistent already
+    except for the variable ``changed`` (just narrowed), so only the arcs
+    pointing at it are revised first.
+    """
+    by_var = _by_var(constraints) if by_var is None else by_var
+    if changed is None:
+        queue = [(c.a, c) for c in constraints] + [(c.b, c) for c in constraints]
+    else:
+        queue = [(c.other(changed), c) for c in by_var[changed]]
     queued = set((v, id(c)) for v, c in queue)
     while queue:
         var, c = queue.pop()
@@ -101,25 +127,101 @@ def arc_consistent(domains: Domains, constraints: list[Binary]) -> bool:
 def find_solution(domains: Domains, constraints: list[Binary]) -> dict[str, Chain] | None:
     """One complete assignment satisfying every constraint, or None (MAC search)."""
     work = {v: list(d) for v, d in domains.items()}
+    constraints = _merge(constraints)
     if not arc_consistent(work, constraints):
         return None
     return _search(work, constraints)
 
 
+def _cyclic_core(domains: Domains, by_var: dict[str, list[Binary]]) -> set[str]:
+    """Variables of more than one value that lie on or between cycles of constraints among such variables.
+
+    Leaves (at most one constraint to another open variable) are peeled off
+    repeatedly; what remains is empty exactly when the open variables' graph
+    is a forest (parallel constraints must be merged beforehand).
+    """
+    open_vars = {v for v, d in domains.items() if len(d) > 1}
+    degree = {v: sum(1 for c in by_var[v] if c.other(v) in open_vars) for v in open_vars}
+    core = set(open_vars)
+    stack = [v for v, k in degree.items() if k <= 1]
+    while stack:
+        v = stack.pop()
+        if v not in core:
+            continue
+        core.discard(v)
+        for c in by_var[v]:
+            o = c.other(v)
+            if o in core:
+                degree[o] -= 1
+                if degree[o] <= 1:
+                    stack.append(o)
+    return core
+
+
+def _tree_solution(domains: Domains, by_var: dict[str, list[Binary]]) -> dict[str, Chain] | None:
+    """A solution read off arc-consistent domains whose open variables form a forest (no backtracking).
+
+    Each open variable takes a value that agrees with its already assigned
+    neighbours; on an arc-consistent forest one always exists (Freuder 1982).
+    None if a check fails (which would mean the premise does not hold).
+    """
+    assignment: dict[str, Chain] = {v: d[0] for v, d in domains.items() if len(d) == 1}
+    for start in domains:
+        if start in assignment:
+            continue
+        queue = [start]
+        while queue:
+            v = queue.pop()
+            if v in assignment:
+                continue
+            value = next(
+                (
+                    y
+                    for y in domains[v]
+                    if all(c.holds(v, y, assignment[c.other(v)]) for c in by_var[v] if c.other(v) in assignment)
+                ),
+                None,
+            )
+            if value is None:
+                return None
+            assignment[v] = value
+            queue.extend(c.other(v) for c in by_var[v] if c.other(v) not in assignment)
+    return assignment
+
+
 def _search(domains: Domains, constraints: list[Binary]) -> dict[str, Chain] | None:
-    open_vars = [v for v, d in domains.items() if len(d) > 1]
-    if not open_vars:
-        assignment = {v: d[0] for v, d in domains.items()}
-        return assignment if all(c.test(assignment[c.a], assignment[c.b]) for c in constraints) else None
-    var = min(open_vars, key=lambda v: len(domains[v]))
-    for value in domains[var]:
-        trial = {v: list(d) for v, d in domains.items()}
-        trial[var] = [value]
-        if arc_consistent(trial, constraints):
-            found = _search(trial, constraints)
-            if found is not None:
-                return found
-    return None
+    """Maintained-arc-consistency search on arc-consistent ``domains`` (iterative, so depth is no limit).
+
+    Only variables on cycles are branched on (a cycle cutset): once the open
+    variables form a forest, a solution is read off without search.
+    Constraints must be merged (one per pair of variables).
+    """
+    by_var = _by_var(constraints)
+    frames: list[tuple[Domains, str, Iterator[Chain]]] = []
+    current: Domains | None = domains
+    while True:
+        if current is not None:
+            core = _cyclic_core(current, by_var)
+            if not core:
+                found = _tree_solution(current, by_var)
+                if found is not None and all(c.test(found[c.a], found[c.b]) for c in constraints):
+                    return found
+            else:
+                var = min(core, key=lambda v: (len(current[v]), -len(by_var[v]), v))  # type: ignore[index]
+                frames.append((current, var, iter(list(current[var]))))
+        current = None
+        while frames and current is None:
+            parent, var, values = frames[-1]
+            for value in values:
+                trial = dict(parent)
+                trial[var] = [value]
+                if arc_consistent(trial, constraints, changed=var, by_var=by_var):
+                    current = trial
+                    break
+            else:
+                frames.pop()
+        if current is None:
+            return None
 
 
 def _merge(constraints: list[Binary]) -> list[Binary]:
@@ -138,13 +240,19 @@ def _merge(constraints: list[Binary]) -> list[Binary]:
         def test(x: Chain, y: Chain, parts=parts) -> bool:
             return all(c.test(x, y) if same else c.test(y, x) for c, same in parts)
 
+        checks = [c.viable for c in group if c.viable is not None]
+
+        def viable(x: Chain, checks=checks) -> bool:
+            return all(check(x) for check in checks)
+
         keyed = next(((c, same) for c, same in parts if c.tokens_a is not None and c.tokens_b is not None), None)
+        source = "+".join(c.source for c in group)
         if keyed is None:
-            merged.append(Binary(a, b, test, "+".join(c.source for c in group)))
+            merged.append(Binary(a, b, test, source, viable=viable if checks else None))
         else:
             c, same = keyed
             ta, tb = (c.tokens_a, c.tokens_b) if same else (c.tokens_b, c.tokens_a)
-            merged.append(Binary(a, b, test, "+".join(x.source for x in group), ta, tb))
+            merged.append(Binary(a, b, test, source, ta, tb, viable if checks else None))
     return merged
 
 
@@ -287,31 +395,13 @@ class _WitnessFinder:
     def find(self, var: str, value: Chain) -> dict[str, Chain] | None:
         order = self._order(var)
         assignment: dict[str, Chain] = {var: value}
-        nodes = 0
 
         def consistent(v: str, y: Chain) -> bool:
             return all(c.holds(v, y, assignment[c.other(v)]) for c in self.by_var[v] if c.other(v) in assignment)
 
-        def extend(i: int) -> bool | None:
-            nonlocal nodes
-            if i == len(order):
-                return True
-            v = order[i]
-            for y in self._candidates(v, assignment):
-                nodes += 1
-                if nodes > self.BUDGET:
-                    return None
-                if consistent(v, y):
-                    assignment[v] = y
-                    res = extend(i + 1)
-                    if res is not False:
-                        return res
-                    del assignment[v]
-            return False
-
         if not consistent(var, value):
             return None
-        result = extend(1)
+        result = _depth_first(order, 1, assignment, self._candidates, consistent, self.BUDGET)
         if result is True:
             return dict(assignment)
         if result is None:  # budget exhausted: decide with the complete MAC search
@@ -319,6 +409,60 @@ class _WitnessFinder:
             trial[var] = [value]
             return find_solution(trial, self.constraints)
         return None
+
+
+def _depth_first(
+    order: list[str],
+    start: int,
+    assignment: dict[str, Chain],
+    candidates: Callable[[str, dict[str, Chain]], Iterable[Chain]],
+    consistent: Callable[[str, Chain], bool],
+    budget: int | None = None,
+    on_complete: Callable[[dict[str, Chain]], bool] | None = None,
+) -> bool | None:
+    """Backtracking over ``order[start:]`` with an explicit stack (no recursion, so any depth).
+
+    Returns True when every variable is assigned (``assignment`` then holds
+    the solution), False when none exists, None when more than ``budget``
+    candidates were tried. With ``on_complete``, each complete assignment is
+    passed to it and the search goes on while it returns True (the result is
+    then False once all were seen, or True if it asked to stop).
+    """
+    nodes = 0
+    stack: list[Iterator[Chain]] = []
+    i = start
+    if i == len(order):
+        if on_complete is None:
+            return True
+        return not on_complete(assignment)
+    stack.append(iter(candidates(order[i], assignment)))
+    while stack:
+        v = order[i]
+        advanced = False
+        for y in stack[-1]:
+            nodes += 1
+            if budget is not None and nodes > budget:
+                return None
+            if consistent(v, y):
+                assignment[v] = y
+                advanced = True
+                break
+        if not advanced:
+            stack.pop()
+            i -= 1
+            if stack:
+                del assignment[order[i]]
+            continue
+        if i + 1 == len(order):
+            if on_complete is None:
+                return True
+            if not on_complete(assignment):
+                return True
+            del assignment[v]
+            continue
+        i += 1
+        stack.append(iter(candidates(order[i], assignment)))
+    return False
 
 
 def _repairs(var: str, value: Chain, witnesses: list[dict[str, Chain]], cons: list[Binary], supported) -> bool:
@@ -346,22 +490,17 @@ def enumerate_solutions(domains: Domains, constraints: list[Binary], limit: int)
     finder = _WitnessFinder(domains, constraints, by_var)
     order = finder._order(next(iter(domains)))
     out: list[dict[str, Chain]] = []
+
+    def consistent(v: str, y: Chain) -> bool:
+        return all(c.holds(v, y, assignment[c.other(v)]) for c in by_var[v] if c.other(v) in assignment)
+
+    def collect(found: dict[str, Chain]) -> bool:
+        out.append(dict(found))
+        return len(out) <= limit
+
     assignment: dict[str, Chain] = {}
-
-    def walk(i: int) -> bool:
-        if i == len(order):
-            out.append(dict(assignment))
-            return len(out) <= limit
-        v = order[i]
-        for y in finder._candidates(v, assignment):
-            if all(c.holds(v, y, assignment[c.other(v)]) for c in by_var[v] if c.other(v) in assignment):
-                assignment[v] = y
-                if not walk(i + 1):
-                    return False
-                del assignment[v]
-        return True
-
-    return out if walk(0) else None
+    stopped = _depth_first(order, 0, assignment, finder._candidates, consistent, on_complete=collect)
+    return None if stopped else out
 
 
 def components(variables: Iterable[str], constraints: list[Binary]) -> list[list[str]]:

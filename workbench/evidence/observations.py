@@ -25,6 +25,7 @@ from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any, ClassVar
 
 from workbench.errors import ObservationError
+from workbench.inputs import show
 
 __all__ = [
     "DEFAULT_SIGMA",
@@ -443,21 +444,23 @@ def _check(spec: FieldSpec, value: Any, oid: str | None) -> Any:
 
     if spec.type in ("unknown", "member", "text"):
         if not isinstance(value, str) or not value.strip():
-            raise fail(f"expected a non-empty text, got {value!r}")
+            raise fail(f"expected a non-empty text, got {show(value)}")
         return value.strip()
     if spec.type == "choice":
         if value not in spec.choices:
-            raise fail(f"{value!r} is not one of {', '.join(spec.choices)}")
+            raise fail(f"{show(value)} is not one of {', '.join(spec.choices)}")
         return value
     if spec.type == "bool":
         if not isinstance(value, bool):
-            raise fail(f"expected true or false, got {value!r}")
+            raise fail(f"expected true or false, got {show(value)}")
         return value
     if spec.type in ("int", "float"):
         if isinstance(value, bool) or not isinstance(value, (int, float)):
-            raise fail(f"expected a number, got {value!r}")
+            raise fail(f"expected a number, got {show(value)}")
         if spec.type == "int" and (isinstance(value, float) and not value.is_integer()):
-            raise fail(f"expected a whole number, got {value!r}")
+            raise fail(f"expected a whole number, got {show(value)}")
+        if abs(value) > _LARGEST:
+            raise fail(f"{show(value)} is out of range")
         number = int(value) if spec.type == "int" else float(value)
         if number != number or number in (float("inf"), float("-inf")):
             raise fail("expected a finite number")
@@ -472,7 +475,7 @@ def _check(spec: FieldSpec, value: Any, oid: str | None) -> Any:
         return number
     if spec.type == "members":
         if not isinstance(value, list) or not all(isinstance(v, str) and v.strip() for v in value):
-            raise fail(f"expected a list of unknown ids or sugar names, got {value!r}")
+            raise fail(f"expected a list of unknown ids or sugar names, got {show(value)}")
         items = tuple(v.strip() for v in value)
         if spec.min_items and len(items) < spec.min_items:
             raise fail(f"needs at least {spec.min_items} member(s), got {len(items)}")
@@ -517,11 +520,13 @@ def observation_from_dict(data: Mapping[str, Any]) -> Observation:
         raise ObservationError(None, None, f"an observation must be a JSON object, got {type(data).__name__}")
     oid = data.get("id")
     if not isinstance(oid, str) or not oid.strip():
-        raise ObservationError(None, "id", f"every observation needs a text id, got {oid!r}")
+        raise ObservationError(None, "id", f"every observation needs a text id, got {show(oid)}")
     oid = oid.strip()
     kind = data.get("kind")
+    if not isinstance(kind, str):
+        raise ObservationError(oid, "kind", f"expected a kind word such as 'series', got {show(kind)}")
     if kind not in OBSERVATION_TYPES:
-        raise ObservationError(oid, "kind", f"unknown kind {kind!r}; known kinds: {', '.join(OBSERVATION_TYPES)}")
+        raise ObservationError(oid, "kind", f"unknown kind {show(kind)}; known kinds: {', '.join(OBSERVATION_TYPES)}")
     cls = OBSERVATION_TYPES[kind]
     allowed = set(_COMMON) | {s.name for s in cls.SPECS}
     extra = sorted(set(data) - allowed)
@@ -540,19 +545,52 @@ def observation_from_dict(data: Mapping[str, Any]) -> Observation:
     for key in ("note", "by", "recorded"):
         value = data.get(key, "")
         if not isinstance(value, str):
-            raise ObservationError(oid, key, f"expected text, got {value!r}")
+            raise ObservationError(oid, key, f"expected text, got {show(value)}")
         kwargs[key] = value
     if kwargs["recorded"]:
         try:
             _dt.datetime.fromisoformat(kwargs["recorded"].replace("Z", "+00:00"))
         except ValueError as err:
-            raise ObservationError(oid, "recorded", f"{kwargs['recorded']!r} is not an ISO 8601 date") from err
+            raise ObservationError(oid, "recorded", f"{show(kwargs['recorded'])} is not an ISO 8601 date") from err
     if kind == "same_product" and kwargs["relation"] == "enantiomeric" and len(kwargs["members"]) != 2:
         raise ObservationError(oid, "members", "an 'enantiomeric' relation needs exactly two members")
     if kind == "coupling_constant":
         kwargs["pair"] = _proton_pair(kwargs["pair"], oid)
     _check_residue_kind(kind, kwargs, oid)
+    if kind == "molecular_formula":
+        kwargs["value"] = _hill_formula(kwargs["value"], oid)
     return cls(oid, **kwargs)
+
+
+_LARGEST = 1e15  # no field of any kind is meaningful beyond this magnitude
+
+# Elements a sugar or a derivative stereosieve models can contain, as written in a formula.
+_ELEMENTS = frozenset({"C", "H", "N", "O", "S", "P", "F", "Cl", "Br", "I", "Na", "K"})
+_ELEMENT = re.compile(r"([A-Z][a-z]?)(\d*)")
+
+
+def _hill_formula(text: str, oid: str) -> str:
+    """A molecular formula in Hill order (C, then H, then the rest alphabetically; without carbon all
+    alphabetically: Hill, J. Am. Chem. Soc. 22, 478, 1900), spaces removed; else ObservationError."""
+    clean = text.replace(" ", "")
+    parts = _ELEMENT.findall(clean)
+    if not clean or "".join(e + n for e, n in parts) != clean or len(clean) > 60:
+        raise ObservationError(oid, "value", f"{show(text)} is not a molecular formula such as C6H12O6")
+    symbols = [e for e, _ in parts]
+    unknown = [e for e in symbols if e not in _ELEMENTS]
+    if unknown:
+        raise ObservationError(oid, "value", f"element {unknown[0]!r} is not one stereosieve models in a formula")
+    if len(set(symbols)) != len(symbols):
+        raise ObservationError(oid, "value", f"{show(text)} names an element twice; write each once (Hill formula)")
+    if any(n and (n.startswith("0") or int(n) > 999) for _, n in parts):
+        raise ObservationError(oid, "value", f"{show(text)} has a count of zero, a leading zero or over 999")
+    rest = sorted(e for e in symbols if e not in ("C", "H"))
+    hill = (["C"] + (["H"] if "H" in symbols else []) + rest) if "C" in symbols else sorted(symbols)
+    if symbols != hill:
+        counts = dict(parts)
+        suggestion = "".join(e + counts[e] for e in hill)
+        raise ObservationError(oid, "value", f"{show(text)} is not in Hill order; write {suggestion}")
+    return clean
 
 
 _PROTON = re.compile(r"^H-?(\d+)(ax|eq)?$", re.IGNORECASE)
@@ -570,7 +608,7 @@ def _proton_pair(text: str, oid: str) -> str:
             merged.append(part)
     matches = [_PROTON.match(p) for p in merged]
     if len(merged) != 2 or not all(matches):
-        raise ObservationError(oid, "pair", f"{text!r} is not a proton pair such as H1-H2 or H4-H5ax")
+        raise ObservationError(oid, "pair", f"{show(text)} is not a proton pair such as H1-H2 or H4-H5ax")
     protons = sorted(((int(m[1]), (m[2] or "").lower()) for m in matches if m), key=lambda x: x[0])
     return "-".join(f"H{n}{suffix}" for n, suffix in protons)
 

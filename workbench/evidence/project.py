@@ -14,7 +14,6 @@ import os
 from collections.abc import Mapping
 from dataclasses import dataclass, field, replace
 from functools import cached_property
-from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 from workbench.chem.catalogue import DEFAULT_SCOPE, Scope, catalogue
@@ -24,6 +23,7 @@ from workbench.chem.residue import DEFAULT_RESIDUE_SCOPE, ResidueScope
 from workbench.errors import NameNotRecognisedError, ObservationError, ProjectError, ScopeError
 from workbench.evidence.observations import Observation, observation_from_dict
 from workbench.files import write_text_atomic
+from workbench.inputs import check_tree, read_project_json, show
 
 if TYPE_CHECKING:
     import pandas as pd
@@ -148,14 +148,14 @@ def _unknown_from(data: Any, index: int, problems: list[str]) -> Unknown | None:
         return None
     uid = data.get("id")
     if not isinstance(uid, str) or not uid.strip():
-        problems.append(f"{where}: field 'id' must be a non-empty text, got {uid!r}")
+        problems.append(f"{where}: field 'id' must be a non-empty text, got {show(uid)}")
         return None
     extra = sorted(set(data) - {"id", "label", "scope", "type"})
     if extra:
-        problems.append(f"unknown {uid}: field '{extra[0]}' is not known; use id, label, type, scope")
+        problems.append(f"unknown {uid}: field {show(extra[0])} is not known; use id, label, type, scope")
     kind = data.get("type", "monosaccharide")
-    if kind not in UNKNOWN_TYPES:
-        problems.append(f"unknown {uid}: field 'type' must be one of {', '.join(UNKNOWN_TYPES)}, got {kind!r}")
+    if not isinstance(kind, str) or kind not in UNKNOWN_TYPES:
+        problems.append(f"unknown {uid}: field 'type' must be one of {', '.join(UNKNOWN_TYPES)}, got {show(kind)}")
         kind = "monosaccharide"
     label = data.get("label", "")
     if not isinstance(label, str):
@@ -165,6 +165,8 @@ def _unknown_from(data: Any, index: int, problems: list[str]) -> Unknown | None:
     if "scope" in data:
         if not isinstance(data["scope"], Mapping):
             problems.append(f"unknown {uid}: field 'scope' must be an object")
+        elif _scope_problems(data["scope"]):
+            problems.extend(f"unknown {uid}: {p}" for p in _scope_problems(data["scope"]))
         else:
             try:
                 reader = ResidueScope if kind == "residue" else Scope
@@ -176,23 +178,44 @@ def _unknown_from(data: Any, index: int, problems: list[str]) -> Unknown | None:
     return Unknown(uid.strip(), label, scope, scope_given="scope" in data, type=kind)
 
 
+_SCOPE_TYPES = {"carbons": int, "carbonyl": str, "series": str, "modifications": str}
+
+
+def _scope_problems(scope: Mapping) -> list[str]:
+    """Type faults in a scope object (lists of whole numbers or texts), before the catalogue reads it."""
+    out = []
+    for key, kind in _SCOPE_TYPES.items():
+        value = scope.get(key)
+        if not isinstance(value, list):
+            continue
+        for item in value:
+            if isinstance(item, bool) or not isinstance(item, kind):
+                wanted = "whole numbers" if kind is int else "texts"
+                out.append(f"scope '{key}' must list {wanted}, got {show(item)}")
+                break
+    return out
+
+
 def project_from_dict(data: Any, source: str = "<project>") -> Project:
     """Validate a parsed project file; raise :class:`ProjectError` listing every problem."""
     problems: list[str] = []
     if not isinstance(data, Mapping):
         raise ProjectError(source, [f"the file must hold one JSON object, not {type(data).__name__}"])
+    tree_problems = check_tree(data)
+    if tree_problems:
+        raise ProjectError(source, tree_problems)
     fmt = data.get("format")
     if fmt != FORMAT:
-        problems.append(f"field 'format' must be {FORMAT!r}, got {fmt!r}")
+        problems.append(f"field 'format' must be {FORMAT!r}, got {show(fmt)}")
     version = data.get("version")
     if isinstance(version, bool) or not isinstance(version, int):
-        problems.append(f"field 'version' must be a whole number, got {version!r}")
+        problems.append(f"field 'version' must be a whole number, got {show(version)}")
     elif version > VERSION:
         problems.append(f"version {version} is newer than this stereosieve reads (up to {VERSION}); please upgrade")
     elif version < 1:
         problems.append(f"field 'version' must be 1 or more, got {version}")
     for key in sorted(set(data) - _TOP_KEYS):
-        problems.append(f"top-level field '{key}' is not known; use {', '.join(sorted(_TOP_KEYS))}")
+        problems.append(f"top-level field {show(key)} is not known; use {', '.join(sorted(_TOP_KEYS))}")
     title = data.get("title", "")
     if not isinstance(title, str):
         problems.append("field 'title' must be text")
@@ -289,22 +312,12 @@ def _reference_problems(obs: Observation, ids: set[str], cache: dict[str, str | 
 
 
 def load_project(path: str | os.PathLike[str]) -> Project:
-    """Read and validate a project file; :class:`ProjectError` names the file and each problem."""
-    p = Path(path)
-    source = str(p)
-    try:
-        text = p.read_text(encoding="utf-8")
-    except FileNotFoundError as err:
-        raise ProjectError(source, ["no such file"]) from err
-    except UnicodeDecodeError as err:
-        raise ProjectError(source, [f"not UTF-8 text ({err.reason} at byte {err.start})"]) from err
-    except OSError as err:
-        raise ProjectError(source, [f"cannot read the file: {err.strerror}"]) from err
-    try:
-        data = json.loads(text)
-    except json.JSONDecodeError as err:
-        raise ProjectError(source, [f"malformed JSON at line {err.lineno}, column {err.colno}: {err.msg}"]) from err
-    return project_from_dict(data, source)
+    """Read and validate a project file; :class:`ProjectError` names the file and each problem.
+
+    The file passes :mod:`workbench.inputs` first (file type, size,
+    depth, number and text limits).
+    """
+    return project_from_dict(read_project_json(path), str(path))
 
 
 def dumps_project(project: Project) -> str:
