@@ -486,7 +486,7 @@ def _check(spec: FieldSpec, value: Any, oid: str | None) -> Any:
         return items
     if spec.type == "positions":
         if not isinstance(value, list) or not all(isinstance(v, int) and not isinstance(v, bool) for v in value):
-            raise fail(f"expected a list of carbon numbers such as [2, 3, 6], got {value!r}")
+            raise fail(f"expected a list of carbon numbers such as [2, 3, 6], got {show(value)}")
         top = int(spec.maximum) if spec.maximum is not None else 9
         bad = [v for v in value if not 1 <= v <= top]
         if bad:
@@ -498,11 +498,11 @@ def _check(spec: FieldSpec, value: Any, oid: str | None) -> Any:
         return tuple(sorted(value))
     if spec.type == "numbers":
         if not isinstance(value, list) or not value:
-            raise fail(f"expected a non-empty list of numbers, got {value!r}")
+            raise fail(f"expected a non-empty list of numbers, got {show(value)}")
         out = []
         for v in value:
             if isinstance(v, bool) or not isinstance(v, (int, float)) or v != v or v in (float("inf"), float("-inf")):
-                raise fail(f"expected finite numbers, got {v!r}")
+                raise fail(f"expected finite numbers, got {show(v)}")
             if spec.minimum is not None and v < spec.minimum:
                 raise fail(f"{v:g} is below the smallest allowed value {spec.minimum:g}")
             out.append(float(v))
