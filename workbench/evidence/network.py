@@ -318,14 +318,18 @@ def supported_domains(domains: Domains, constraints: list[Binary]) -> Domains | 
             supported[var] = set(work[var])  # unconstrained: any value joins any solution
             continue
         for value in list(work[var]):
-            if value in supported[var]:
+            if value in supported[var] or value not in finder.alive[var]:
                 continue
             if _repairs(var, value, witnesses, by_var[var], supported):
                 continue
             sol = finder.find(var, value)
             if sol is None:
-                work[var].remove(value)
-                finder.removed(var, value)
+                # No solution holds ``value``: drop it and restore arc consistency from ``var``, so that
+                # the domains stay arc consistent (what the cutset search needs) and smaller.
+                work[var] = [x for x in work[var] if x != value]
+                if not arc_consistent(work, constraints, changed=var, by_var=by_var):
+                    return None
+                finder.sync()
                 continue
             witnesses.append(sol)
             for v, val in sol.items():
@@ -343,7 +347,7 @@ class _WitnessFinder:
     arc-consistency search (also complete), so the answer stays exact.
     """
 
-    BUDGET = 20000
+    BUDGET = 60
 
     def __init__(self, work: Domains, constraints: list[Binary], by_var: dict[str, list[Binary]]) -> None:
         self.work = work
@@ -361,8 +365,11 @@ class _WitnessFinder:
                         table[t].append(x)
                 self.index[(id(c), end)] = table
 
-    def removed(self, var: str, value: Chain) -> None:
-        self.alive[var].discard(value)
+    def sync(self) -> None:
+        """Take over the values removed from the shared domains since the last call."""
+        for v, d in self.work.items():
+            if len(d) != len(self.alive[v]):
+                self.alive[v] = set(d)
 
     def _order(self, start: str) -> list[str]:
         order, seen = [start], {start}
@@ -404,10 +411,12 @@ class _WitnessFinder:
         result = _depth_first(order, 1, assignment, self._candidates, consistent, self.BUDGET)
         if result is True:
             return dict(assignment)
-        if result is None:  # budget exhausted: decide with the complete MAC search
-            trial = {v: [x for x in d if x in self.alive[v]] for v, d in self.work.items()}
+        if result is None:  # budget exhausted: decide with the complete cutset search
+            trial = dict(self.work)  # arc consistent (kept so by supported_domains)
             trial[var] = [value]
-            return find_solution(trial, self.constraints)
+            if not arc_consistent(trial, self.constraints, changed=var, by_var=self.by_var):
+                return None
+            return _search(trial, self.constraints)
         return None
 
 
