@@ -166,7 +166,7 @@ def _shortened(chain: Chain) -> Chain | None:
     return record_of(chain).chain_shortening
 
 
-@cache
+@functools.cache
 def _extension_parent(chain: Chain) -> Chain | None:
     """The aldose that Kiliani-Fischer extension turns into ``chain`` (if any)."""
     return reactions.extension_parent(chain)
