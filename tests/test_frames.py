@@ -198,6 +198,36 @@ def test_residue_survivors_are_named_as_solve_json_names_them(four_linked):
     assert set(frame["inchikey"]) == {glucose}
 
 
+def test_predictions_of_glucopyranosyl_residues_follow_the_published_rules():
+    from workbench.chem.residue import ResidueScope
+
+    scope = ResidueScope.from_dict({"sugars": ["D-glucose"], "ring": ["pyranose"], "anomer": ["alpha"]})
+    frame = predictions_frame(scope, ["periodate:residue", "smith_degradation", "methylation_analysis"])
+    frame["linked"] = frame["name"].str.extract(r"^->([0-9,]+)\)", expand=False).fillna("terminal")
+    rows = frame.set_index("linked")
+    # Periodate per hexopyranosyl residue, IO4- / HCOOH (REFERENCE_VALUES, glycan residues [memory]):
+    # terminal 2/1; 2-linked 1/0; 3-linked 0/0; 4-linked 1/0; 6-linked 2/1; 2,6- and 4,6-linked 1/0;
+    # 3,6-, 2,4-, 2,3- and 3,4-linked 0/0.
+    published = {
+        "terminal": (2, 1), "2": (1, 0), "3": (0, 0), "4": (1, 0), "6": (2, 1), "2,6": (1, 0), "4,6": (1, 0),
+        "3,6": (0, 0), "2,4": (0, 0), "2,3": (0, 0), "3,4": (0, 0),
+    }  # fmt: skip
+    for linked, (io4, formic) in published.items():
+        got = rows.loc[linked, ["periodate:residue:periodate", "periodate:residue:formic_acid"]].tolist()
+        assert got == [io4, formic], linked
+    assert rows["periodate:residue:co2"].isna().all()
+    # Smith fragments (same source): terminal, 2-, 6- and 2,6-linked -> glycerol; 4- and 4,6-linked ->
+    # erythritol (gluco); 3-linked -> the intact sugar.
+    for linked in ("terminal", "2", "6", "2,6"):
+        assert rows.loc[linked, "smith_degradation"] == "glycerol", linked
+    assert rows.loc["4", "smith_degradation"] == rows.loc["4,6", "smith_degradation"] == "erythritol"
+    assert rows.loc["3", "smith_degradation"] == "D-glucose"
+    # Alditol acetate of a 4-linked pyranose: O-acetyl at 1, 5 (ring O) and 4, O-methyl at 2, 3, 6 (same source)
+    assert rows.loc["4", ["methylation_analysis:methyl", "methylation_analysis:acetyl"]].tolist() == ["2,3,6", "1,4,5"]
+    words = predictions_frame(scope, ["methylation_analysis"], labels=True).set_index("name")
+    assert words.loc["->4)-alpha-D-Glcp-(1->", "methylation_analysis"].startswith("OMe 2,3,6; OAc 1,4,5")
+
+
 def test_residues_frame_is_empty_without_residue_unknowns(two_left):
     frame = residues_frame(two_left)
     assert frame.empty and tuple(frame.columns) == RESIDUE_COLUMNS

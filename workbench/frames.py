@@ -118,7 +118,13 @@ EXPERIMENT_KINDS: dict[str, tuple[str, ...]] = {
     "product": ("reaction",),
     "chain_extension": (),
     "chain_shortening": (),
+    # glycan residue candidates (Contract 5); periodate on them is written periodate:residue
+    "methylation_analysis": (),
+    "smith_degradation": (),
+    "anomer": (),
+    "ring_form": (),
 }
+_RESIDUE_KINDS = ("methylation_analysis", "smith_degradation", "anomer", "ring_form")
 _PERIODATE_FIELDS = ("periodate", "formic_acid", "formaldehyde", "co2")
 _PRODUCT_REACTIONS = ("osazone", "aldaric_acid", "alditol", "aldonic_acid")
 
@@ -355,13 +361,23 @@ def _cells(spec: str, kind: str, raw: Any, labels: bool) -> dict[str, Any]:
     """The cells of one experiment for one candidate: column name -> value."""
     from workbench.evidence.outcomes import NO_PREDICTION, outcome_label
 
+    residue = kind in _RESIDUE_KINDS or spec == "periodate:residue"
     if labels:
         if kind in ("product", "chain_extension", "chain_shortening"):
             return {spec: "does not apply" if raw is None else raw}
+        if residue and raw is not None and raw is not NO_PREDICTION:
+            from workbench.evidence.residue_outcomes import outcome_label as residue_label
+
+            return {spec: residue_label(kind, raw)}
         return {spec: outcome_label(kind, raw)}
     missing = raw is None or raw is NO_PREDICTION
+    if kind == "methylation_analysis":
+        methyl, acetyl = ((), ()) if missing else raw[:2]  # (methyl, acetyl, sugar ...)
+        return {f"{spec}:methyl": ",".join(map(str, methyl)), f"{spec}:acetyl": ",".join(map(str, acetyl))}
+    if kind == "smith_degradation":
+        return {spec: pd.NA if missing else getattr(raw, "word", str(raw))}
     if kind == "periodate":
-        values = (None,) * 4 if missing else raw
+        values = (None,) * 4 if missing else tuple(raw) + (None,) * (4 - len(raw))
         return {
             f"{spec}:{name}": (pd.NA if v is None else float(v))
             for name, v in zip(_PERIODATE_FIELDS, values, strict=True)
@@ -402,6 +418,11 @@ def predictions_frame(
     SMILES joined with ``"."`` for ``product:``, names for the chain
     extension and shortening. ``periodate:<substrate>`` gives four columns
     ``periodate:<substrate>:periodate|formic_acid|formaldehyde|co2`` (mol/mol).
+    Glycan residue candidates (a :class:`~workbench.chem.residue.ResidueScope`
+    or residues) also take ``periodate:residue`` (mol per mol of residue; no
+    CO2), ``methylation_analysis`` (two columns ``:methyl`` and ``:acetyl``,
+    positions joined with ``","``), ``smith_degradation`` (the fragment's
+    word), ``anomer`` and ``ring_form``.
     Missing values (no such product, no published or predicted value, a
     rotation of which only the sign is published) are ``<NA>``.
 
@@ -422,7 +443,14 @@ def predictions_frame(
         rows.append(row)
     columns = list(IDENTITY_COLUMNS)
     for spec, kind, _ in parsed:
-        columns += [f"{spec}:{f}" for f in _PERIODATE_FIELDS] if kind == "periodate" and not labels else [spec]
+        if labels:
+            columns.append(spec)
+        elif kind == "periodate":
+            columns += [f"{spec}:{f}" for f in _PERIODATE_FIELDS]
+        elif kind == "methylation_analysis":
+            columns += [f"{spec}:methyl", f"{spec}:acetyl"]
+        else:
+            columns.append(spec)
     frame = _frame(rows, columns)
     if not labels:
         for spec, kind, _ in parsed:
