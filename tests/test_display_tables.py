@@ -119,7 +119,8 @@ def test_kinds_table_lists_every_observation_kind_with_units():
     html = kinds_html(OBSERVATION_TYPES)
     for kind in OBSERVATION_TYPES:
         assert f">{kind}<" in html
-    assert "periodate [mol/mol]" in html
+    assert "periodate (IO₄⁻ consumed) [mol/mol]" in html  # the file's field name, the chemist's words, the unit
+    assert "co2 (CO₂ formed) [mol/mol] (optional)" in html
 
 
 @dataclass
@@ -201,5 +202,5 @@ def test_chair_of_alpha_d_glucopyranose_has_an_axial_anomeric_oh():
 def test_ring_predictions_table_of_beta_glucopyranose():
     html = ring_predictions_html(resolve("D-glucose"), RingForm("pyranose", "beta"))
     # Preferred chair 4C1; large trans-diaxial J1,2 of beta-Glcp, 7.8-8.0 Hz (REFERENCE_VALUES [memory]).
-    assert "Preferred chair: <b>4C1</b>" in html
+    assert "Preferred chair: <b><sup>4</sup>C<sub>1</sub></b>" in html  # 4C1 written with IUPAC indices (2-Carb-7.2)
     assert "H1-H2" in html and "Hz" in html

@@ -208,3 +208,16 @@ def test_non_finite_anomer_rotation_is_refused_not_printed_as_nan(tmp_path, caps
     assert main(["mutarotation", str(path), "--alpha", "nan", "--beta", "18.7", "--json"]) == 2
     out, err = capsys.readouterr()
     assert "NaN" not in out and "finite" in err
+
+
+def test_fraction_a_hair_below_zero_is_read_as_zero_and_a_far_one_is_kept():
+    # A curve that starts at a rotation a little above Bruice's pure alpha value (noise on the first
+    # points): the two-state model gives x_beta = (112.2 - 112.4) / (112.2 - 18.7) = -0.002, which is 0.
+    t = np.linspace(0.0, 240.0, 30)
+    fit = fit_mutarotation(t, first_order_curve(t, 112.4, GLC_EQ, 0.015), alpha=GLC_ALPHA, beta=GLC_BETA)
+    assert fit.initial_beta_fraction == 0.0
+    assert fit.to_dict()["initial_beta_fraction"] == 0.0
+    # Far outside (a start at 140, arithmetic: (112.2 - 140) / 93.5 = -0.30): the data and the
+    # anomer rotations disagree, and the value is kept to show it.
+    far = fit_mutarotation(t, first_order_curve(t, 140.0, GLC_EQ, 0.015), alpha=GLC_ALPHA, beta=GLC_BETA)
+    assert far.initial_beta_fraction == pytest.approx((112.2 - 140.0) / (112.2 - 18.7), abs=1e-3)

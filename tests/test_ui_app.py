@@ -13,6 +13,7 @@ from workbench.data import DEMO_PROJECT, data_path
 from workbench.errors import ProjectError
 from workbench.ui import Workbench
 from workbench.ui import notebook as lab
+from workbench.ui.base import snapshot_bundle
 from workbench.ui.session import Session
 
 SAMPLES = Path(__file__).resolve().parent.parent / "sample_projects"
@@ -51,10 +52,22 @@ def test_edit_button_loads_the_form_and_prepare_fills_it(bench):
 def test_static_snapshot_carries_evidence_survivors_and_drawings(bench):
     bench.session.set_enabled("E6", False)
     html = bench.snapshot_html()
-    assert "readers without a running kernel" in html
     assert "<b>E6</b>" in html and "switched off" in html  # the ledger
-    assert html.count('class="ss-fischer"') >= 2 and "D-allose" in html  # survivors drawn
-    assert "ss-narrowing" in html and "What to try next" in html
+    # survivors drawn in characters (a sanitiser strips SVG and scripts but keeps <pre>)
+    assert html.count('class="ss-fischer-text"') >= 2 and "D-allose" in html
+    assert "<svg" not in html and "<script" not in html and "<style" not in html
+    assert "ss-narrowing-table" in html and "What to try next" in html
+    bundle = snapshot_bundle(html, "workbench")
+    assert "readers without a running kernel" in bundle["text/html"]
+    assert not bundle["text/plain"].startswith("<")  # a sentence, not an object's repr
+
+
+def test_prepare_entry_works_straight_after_the_automatic_ranking(bench):
+    bench.session.set_enabled("E6", False)  # re-ranked automatically; nothing chosen by hand
+    assert bench.planner.choice.value == 0  # the best suggestion is selected
+    bench.planner.prepare_button.click()
+    assert bench.form.kind.value == bench.planner.plan.experiments[0].kind
+    assert "Prepared" in bench.planner.notices.text
 
 
 def test_callback_errors_are_shown_on_the_panel(bench):

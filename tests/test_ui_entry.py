@@ -109,7 +109,7 @@ def test_unary_fields_offer_the_project_s_unknowns(session):
     form = EvidenceForm(session, kind="bromine_water")
     assert list(form.editors["unknown"].control.options) == ["S1"]
     assert form.editors["unknown"].control.value == "S1"  # the only one is chosen
-    assert list(form.editors["result"].control.options) == ["oxidised", "unchanged"]
+    assert [value for _label, value in form.editors["result"].control.options] == ["oxidised", "unchanged"]
 
 
 def test_edit_loads_an_observation_and_saving_replaces_it(session):
@@ -151,3 +151,12 @@ def test_errors_in_callbacks_are_shown_not_swallowed(session, monkeypatch):
     form.record_button.click()
     assert "RuntimeError: disk on fire" in form.notices.text
     assert isinstance(form.notices.last_error, RuntimeError)
+
+
+def test_choices_are_labelled_in_chemists_words_and_keep_the_file_values(session):
+    form = EvidenceForm(session, kind="periodate")
+    substrate = form.editors["substrate"].control
+    assert ("methyl pyranoside", "methyl_pyranoside") in list(substrate.options)
+    substrate.value = "methyl_pyranoside"
+    assert form.values()["substrate"] == "methyl_pyranoside"  # the file keeps the identifier
+    assert "CO₂ formed" in form.editors["co2"].label.value

@@ -33,6 +33,7 @@ from workbench.display.tables import (
 )
 from workbench.evidence.rivals import closest_rivals
 from workbench.files import OutputError, check_output, write_text_atomic
+from workbench.glossary import kind_name
 
 __all__ = ["RIVALS_SHOWN", "ReportError", "check_report_path", "render_report", "rivals_html", "write_report"]
 
@@ -81,7 +82,7 @@ def rivals_html(solution, uid: str, limit: int = RIVALS_SHOWN) -> str:
             rows.append((name, f"still possible ({esc(share)})", "-", "-", "-"))
             continue
         obs = project.observation(rival.removed_by)
-        evidence = f"<b>{esc(obs.id)}</b> {esc(obs.KIND)}: {esc(observation_values(obs))}"
+        evidence = f"<b>{esc(obs.id)}</b> {esc(kind_name(obs.KIND))}: {esc(observation_values(obs))}"
         rows.append((name, "eliminated", evidence, esc(rival.reason or "-"), esc(_recorded(obs))))
     headers = ["rival", "status", "removed by", "why", "recorded by / when"]
     return table_html(headers, rows, cls="ss-rivals", raw=True)

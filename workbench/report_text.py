@@ -10,6 +10,7 @@ from workbench.chem.chain import Chain
 from workbench.chem.names import display_name, systematic_name
 from workbench.chem.smiles import to_inchikey, to_smiles
 from workbench.chem.symbols import symbol
+from workbench.glossary import observation_text
 
 __all__ = ["identity_json", "predict_json", "predict_text", "compound_text", "probability_bar"]
 
@@ -230,7 +231,7 @@ def solution_text(solution) -> str:
         lines.append("")
         lines.append("The evidence is contradictory. Minimal sets of observations that cannot all hold:")
         for c in solution.conflicts:
-            described = "; ".join(project.observation(o).describe() for o in c)
+            described = " | ".join(observation_text(project.observation(o)) for o in c)
             lines.append(f"  {{{', '.join(c)}}}  {described}")
         for oid, by_u in solution.relief.items():
             summary = ", ".join(f"{u}: {len(cs)} ({_names(cs, 3)})" for u, cs in by_u.items())

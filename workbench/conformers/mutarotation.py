@@ -44,14 +44,28 @@ def first_order_curve(t: np.ndarray | Sequence[float], initial: float, equilibri
         return equilibrium + (initial - equilibrium) * np.exp(-k * tt)
 
 
+FRACTION_SLACK = 0.02  # a mole fraction this far outside 0-1 is read as the bound (fit scatter)
+
+
+def _bounded(fraction: float) -> float:
+    """``fraction`` with values within :data:`FRACTION_SLACK` outside 0-1 put on the bound (-0.001 -> 0.0)."""
+    if -FRACTION_SLACK <= fraction < 0.0:
+        return 0.0
+    if 1.0 < fraction <= 1.0 + FRACTION_SLACK:
+        return 1.0
+    return fraction
+
+
 @dataclass(frozen=True)
 class MutarotationFit:
     """Result of a mutarotation fit. Rotations in deg mL g-1 dm-1, times in minutes.
 
     ``beta_fraction`` (equilibrium) and ``initial_beta_fraction`` (at t = 0)
     are given only when the pure anomers' rotations were supplied; they come
-    from the two-state model and may fall outside 0-1 if the data and the
-    anomer rotations disagree.
+    from the two-state model. A value just outside 0-1 (by at most
+    :data:`FRACTION_SLACK`, the scatter of a fitted end point) is the bound
+    itself and is given as 0 or 1; one further outside is kept as computed, a
+    sign that the data and the anomer rotations disagree.
     """
 
     rate_constant_per_min: float
@@ -78,14 +92,14 @@ class MutarotationFit:
         """Equilibrium beta fraction (two-state model) or None without anomer rotations."""
         if self.alpha_rotation is None or self.beta_rotation is None:
             return None
-        return two_state_beta_fraction(self.alpha_rotation, self.beta_rotation, self.equilibrium_rotation)
+        return _bounded(two_state_beta_fraction(self.alpha_rotation, self.beta_rotation, self.equilibrium_rotation))
 
     @property
     def initial_beta_fraction(self) -> float | None:
         """Beta fraction of the sample at t = 0 (two-state model), or None."""
         if self.alpha_rotation is None or self.beta_rotation is None:
             return None
-        return two_state_beta_fraction(self.alpha_rotation, self.beta_rotation, self.initial_rotation)
+        return _bounded(two_state_beta_fraction(self.alpha_rotation, self.beta_rotation, self.initial_rotation))
 
     def to_dict(self) -> dict:
         """The keys printed by ``stereosieve mutarotation --json``."""

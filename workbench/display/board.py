@@ -3,17 +3,25 @@
 :func:`board_html` renders one unknown; :func:`solution_html` renders a whole
 solution (what ``Solution`` shows in a notebook and what the report embeds).
 Stereocentres on which the survivors still disagree are ringed in amber.
+
+Two media: ``"svg"`` draws with inline SVG (the live panels, the report);
+``"plain"`` draws with characters and plain markup only
+(:mod:`workbench.display.plain`), which every notebook sanitiser keeps: the
+static copies saved in notebooks use it.
 """
 
 from __future__ import annotations
 
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name, systematic_name
+from workbench.chem.order import in_configurational_order
 from workbench.display.chart import narrowing_chart
 from workbench.display.fischer import disputed_centres, fischer_svg
 from workbench.display.palette import ACCENT, CAUTION, FONT, INK, MUTED, PAPER, RULE, esc
+from workbench.display.plain import narrowing_table, plain_card
 from workbench.display.residues import residue_cards_html
 from workbench.display.tables import conflicts_html, eliminated_html, ledger_html, scope_text, trail_html
+from workbench.glossary import observation_text
 
 __all__ = ["survivor_card", "survivors_html", "board_html", "solution_html", "probability_bar_html", "suspects_html"]
 
@@ -35,7 +43,7 @@ def suspects_html(solution) -> str:
     if not solution.suspects:
         return ""
     rows = "".join(
-        f"<li><b>{esc(oid)}</b> {esc(solution.project.observation(oid).describe())}{probability_bar_html(p)}</li>"
+        f"<li>{esc(observation_text(solution.project.observation(oid)))}{probability_bar_html(p)}</li>"
         for oid, p in solution.suspects
     )
     return (
@@ -44,10 +52,13 @@ def suspects_html(solution) -> str:
     )
 
 
-def survivor_card(chain, open_centres=(), flags=(), probability: float | None = None) -> str:
+def survivor_card(chain, open_centres=(), flags=(), probability: float | None = None, medium: str = "svg") -> str:
     """One candidate as a card: Fischer projection, name, systematic name, probability bar, flags."""
     name = display_name(chain)
     systematic = systematic_name(chain)
+    if medium == "plain":
+        extra = probability_bar_html(probability) if probability is not None else ""
+        return plain_card(chain, name, systematic, open_centres, flags, extra)
     sub = "" if systematic == name else f'<div style="color:{MUTED};font-size:11px">{esc(systematic)}</div>'
     flag_html = "".join(f'<div style="color:{CAUTION};font-size:11px">&#9873; {esc(f)}</div>' for f in flags)
     if probability is not None:
@@ -61,19 +72,22 @@ def survivor_card(chain, open_centres=(), flags=(), probability: float | None = 
     )
 
 
-def survivors_html(solution, uid: str, limit: int = 24) -> str:
-    """The survivors of ``uid`` as cards (at most ``limit`` drawn; the rest named)."""
-    survivors = solution.ranked(uid)
+def survivors_html(solution, uid: str, limit: int = 24, medium: str = "svg") -> str:
+    """The survivors of ``uid`` as cards, most probable first, ties in the conventional order (all, alt, glc ...)."""
+    survivors = list(solution.survivors[uid])
     if not survivors:
         why = "the evidence is contradictory" if solution.contradictory else "no candidate fits"
         return f'<p style="font-family:{FONT};color:{MUTED}">No candidate survives: {esc(why)}.</p>'
     if not isinstance(survivors[0], Chain):  # glycan residues: ring drawings with linked positions
         return residue_cards_html(solution, uid, limit)
+    probability = solution.probability if solution.probabilities else None
+    survivors = in_configurational_order(survivors)
+    if probability is not None:  # most probable first; equal probabilities stay in the conventional order
+        survivors = sorted(survivors, key=lambda c: -round(probability(uid, c), 9))
     open_centres = disputed_centres(survivors)
     flags = solution.flags.get(uid, {})
-    probability = solution.probability if solution.probabilities else None
     cards = "".join(
-        survivor_card(c, open_centres, flags.get(c, ()), probability(uid, c) if probability else None)
+        survivor_card(c, open_centres, flags.get(c, ()), probability(uid, c) if probability else None, medium)
         for c in survivors[:limit]
     )
     rest = survivors[limit:]
@@ -85,14 +99,14 @@ def survivors_html(solution, uid: str, limit: int = 24) -> str:
     legend = ""
     if open_centres:
         where = ", ".join(f"C-{k}" for k in sorted(open_centres))
+        how = "Ringed in amber" if medium == "svg" else "Crossing in amber"
         legend = (
-            f'<p style="font-size:12px;color:{MUTED};margin:2px 0">Ringed in amber: configuration still open '
-            f"({esc(where)}).</p>"
+            f'<p style="font-size:12px;color:{MUTED};margin:2px 0">{how}: configuration still open ({esc(where)}).</p>'
         )
     return f'<div class="ss-survivors" style="font-family:{FONT}">{legend}{cards}{more}</div>'
 
 
-def board_html(solution, uid: str, limit: int = 24, eliminated_open: bool = False) -> str:
+def board_html(solution, uid: str, limit: int = 24, eliminated_open: bool = False, medium: str = "svg") -> str:
     """One unknown's board: heading with counts, narrowing chart, survivors, eliminated list.
 
     ``eliminated_open`` unfolds the eliminated list (for print); in notebooks it starts folded.
@@ -115,11 +129,20 @@ def board_html(solution, uid: str, limit: int = 24, eliminated_open: bool = Fals
     )
     return (
         f'<div class="ss-board" data-unknown="{esc(uid)}" style="font-family:{FONT};color:{INK};margin:6px 0 14px 0">'
-        f"{heading}{narrowing_chart(solution, [uid])}{survivors_html(solution, uid, limit)}{eliminated}</div>"
+        f"{heading}{_narrowing(solution, [uid], medium)}{survivors_html(solution, uid, limit, medium)}{eliminated}</div>"
     )
 
 
-def solution_html(solution, limit: int = 24) -> str:
+def _narrowing(solution, ids, medium: str, title: str = "") -> str:
+    if medium == "plain":
+        series = {u: [solution.scope_counts[u]] + [s.counts[u] for s in solution.trail] for u in ids}
+        table = narrowing_table([s.observation for s in solution.trail], series, [s.status for s in solution.trail])
+        head = f'<div style="font-weight:600;color:{ACCENT};margin-top:6px">{esc(title)}</div>' if title else ""
+        return head + table
+    return narrowing_chart(solution, ids, title=title, large=len(ids) > 1)
+
+
+def solution_html(solution, limit: int = 24, medium: str = "svg") -> str:
     """A whole solution: conflicts first, then every unknown's board, the trail and the ledger."""
     project = solution.project
     title = esc(project.title or "(untitled project)")
@@ -134,9 +157,9 @@ def solution_html(solution, limit: int = 24) -> str:
     parts.append(conflicts_html(solution))
     parts.append(suspects_html(solution))
     for uid in project.unknown_ids:
-        parts.append(board_html(solution, uid, limit))
+        parts.append(board_html(solution, uid, limit, medium=medium))
     if len(project.unknown_ids) > 1:
-        parts.append(narrowing_chart(solution, title="All unknowns"))
+        parts.append(_narrowing(solution, list(project.unknown_ids), medium, title="All unknowns"))
     parts.append(f'<div style="font-weight:600;color:{ACCENT};margin-top:8px">Narrowing step by step</div>')
     parts.append(trail_html(solution))
     parts.append(f'<div style="font-weight:600;color:{ACCENT};margin-top:8px">Evidence ledger</div>')

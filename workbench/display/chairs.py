@@ -16,11 +16,20 @@ import math
 
 from workbench.chem.chain import GROUPS, Chain
 from workbench.chem.smiles import RingForm
+from workbench.display.figure import Figure
 from workbench.display.fischer import chem_tspans
 from workbench.display.palette import ACCENT, FONT, HYDROGEN, INK, MUTED, OXYGEN, esc
 from workbench.display.tables import table_html
+from workbench.glossary import conformation_html, term
 
-__all__ = ["AXIAL_COLOUR", "EQUATORIAL_COLOUR", "chair_positions", "chair_svg", "ring_predictions_html"]
+__all__ = [
+    "AXIAL_COLOUR",
+    "EQUATORIAL_COLOUR",
+    "chair_positions",
+    "chair_svg",
+    "chair_figure",
+    "ring_predictions_html",
+]
 
 AXIAL_COLOUR = "#c4622d"
 EQUATORIAL_COLOUR = ACCENT
@@ -81,7 +90,7 @@ def chair_svg(layout, chair: str, caption: str | None = None) -> str:
     width = _MARGIN_X * 2 + _SCALE * 135
     height = _MARGIN_Y * 2 + _SCALE * 70 + (20 if caption else 0)
     name = chair_label(chair, layout.anomeric)
-    title = caption or f"{layout.form.key.replace('_', ' ')} in the {name} chair"
+    title = caption or f"{term(layout.form.key)} in the {name} chair"
     parts = [
         f'<svg xmlns="http://www.w3.org/2000/svg" class="ss-chair" width="{width:.0f}" height="{height:.0f}" '
         f'viewBox="0 0 {width:.0f} {height:.0f}" role="img" aria-label="{esc(title)}" font-family="{esc(FONT)}">',
@@ -142,6 +151,24 @@ def chair_svg(layout, chair: str, caption: str | None = None) -> str:
     return "".join(parts)
 
 
+def chair_figure(layout, chair: str, caption: str | None = None) -> Figure:
+    """:func:`chair_svg` with a plain-text stand-in naming the axial and equatorial groups."""
+    from workbench.conformers.chair import axial_face, chair_label
+
+    svg = chair_svg(layout, chair, caption)
+    axial, equatorial = [], []
+    for p in range(1, 6):
+        up_axial = axial_face(chair, p)
+        for face in ("up", "down"):
+            sub = layout.at(p).on(face)
+            if sub.element == "H":
+                continue
+            (axial if face == up_axial else equatorial).append(sub.label)
+    name = caption or f"{term(layout.form.key)} in the {chair_label(chair, layout.anomeric)} chair"
+    text = f"{name}: axial {', '.join(axial) or 'none'}; equatorial {', '.join(equatorial) or 'none'}"
+    return Figure(svg, text)
+
+
 def _fmt(value: float | None, digits: int = 2, unit: str = "") -> str:
     if value is None:
         return "not predicted"
@@ -157,7 +184,7 @@ def ring_predictions_html(chain: Chain, form: RingForm) -> str:
     from workbench.conformers import anomer_fractions, chair_preferences, ring_couplings
 
     fractions = anomer_fractions(chain)
-    rows = [(k.replace("_", " "), _fmt(v, 2)) for k, v in fractions.items()]
+    rows = [(term(k), _fmt(v, 2)) for k, v in fractions.items()]
     parts = [
         f'<div style="font-family:{FONT};font-size:12px;color:{MUTED}">Forms in water (fractions; pyranoses '
         "of the pyranose pool, Angyal's scheme, 25 C)</div>",
@@ -165,20 +192,20 @@ def ring_predictions_html(chain: Chain, form: RingForm) -> str:
     ]
     pref = chair_preferences(chain).get(form.key)
     if pref is not None:
-        energies = "; ".join(f"{name} {g:.2f}" for name, g in pref.energies)
+        energies = "; ".join(f"{conformation_html(name)} {g:.2f}" for name, g in pref.energies)
         parts.append(
-            f'<div style="font-family:{FONT};font-size:12.5px;color:{INK}">Preferred chair: <b>{esc(pref.preferred)}</b> '
-            f"(free energies {esc(energies)} kcal/mol; gap {pref.energy_gap_kcal:.2f}; "
+            f'<div style="font-family:{FONT};font-size:12.5px;color:{INK}">Preferred chair: <b>{conformation_html(pref.preferred)}</b> '
+            f"(free energies {energies} kcal/mol; gap {pref.energy_gap_kcal:.2f}; "
             f"population {pref.population:.2f})</div>"
         )
     couplings = ring_couplings(chain).get(form.key)
     if couplings:
         rows = [(pair, _fmt(j, 1, "Hz")) for pair, j in couplings.items()]
         parts.append(
-            f'<div style="font-family:{FONT};font-size:12px;color:{MUTED};margin-top:4px">Predicted 3J(H,H) of the '
-            f"{esc(form.key.replace('_', ' '))} (chair-weighted)</div>"
+            f'<div style="font-family:{FONT};font-size:12px;color:{MUTED};margin-top:4px">Predicted <sup>3</sup>J(H,H) of the '
+            f"{esc(term(form.key))} (chair-weighted)</div>"
         )
-        parts.append(table_html(["protons", "3J"], rows))
+        parts.append(table_html(["protons", "³J"], rows))
     elif form.ring == "furanose":
         parts.append(
             f'<div style="font-family:{FONT};font-size:12px;color:{MUTED}">Furanose couplings: see the 3D '

@@ -12,9 +12,10 @@ from __future__ import annotations
 import math
 from collections.abc import Mapping, Sequence
 
+from workbench.display.figure import Figure
 from workbench.display.palette import CONFLICT, FONT, INK, MUTED, RULE, SERIES_COLOURS, STATUS_COLOURS, esc
 
-__all__ = ["narrowing_svg", "narrowing_chart"]
+__all__ = ["narrowing_svg", "narrowing_chart", "narrowing_figure"]
 
 
 def _y(count: int, top: float, bottom: float, log_max: float) -> float:
@@ -31,12 +32,16 @@ def narrowing_svg(
     title: str = "",
     height: float = 130.0,
     step_width: float = 30.0,
+    min_width: float = 0.0,
 ) -> str:
     """A step chart of candidates remaining; returns an SVG document as ``str``.
 
     ``labels`` name the observations in order; each ``series`` value holds the
     count before any observation (the scope) followed by one count per label.
     ``statuses`` (``applied``, ``disabled``, ``contradicts``) colour the points.
+    Several series are drawn a little apart (2 px per series) so that lines
+    with equal counts stay visible side by side; the legend gives the counts.
+    Sizes are in px; the drawing is at least ``min_width`` wide.
     """
     n = len(labels)
     for name, counts in series.items():
@@ -48,7 +53,8 @@ def narrowing_svg(
     bottom = height - (34.0 if not legend else 52.0)
     width = left + right + step_width * max(n, 1) + 10
     if legend:
-        width = max(width, left + 74 * len(series) + 10)
+        width = max(width, left + 90 * len(series) + 10)
+    width = max(width, min_width)
     peak = max([max(c) for c in series.values() if c] + [2])
     log_max = math.log2(peak)
     parts = [
@@ -76,7 +82,8 @@ def narrowing_svg(
     parts.append(f'<text x="{xs[0]:.1f}" y="{bottom + 20:.1f}" text-anchor="middle" fill="{MUTED}">scope</text>')
     for k, (name, counts) in enumerate(series.items()):
         colour = SERIES_COLOURS[k % len(SERIES_COLOURS)]
-        ys = [_y(c, top, bottom, log_max) for c in counts]
+        offset = (k - (len(series) - 1) / 2) * 2.0 if legend else 0.0
+        ys = [_y(c, top, bottom, log_max) + offset for c in counts]
         d = f"M{xs[0]:.1f} {ys[0]:.1f}" + "".join(f"H{xs[i]:.1f}V{ys[i]:.1f}" for i in range(1, n + 1))
         parts.append(
             f'<path class="ss-series" data-series="{esc(name)}" d="{d}" stroke="{colour}" '
@@ -108,17 +115,32 @@ def narrowing_svg(
                         f'<text x="{xs[i] + 3:.1f}" y="{ys[i] - 6:.1f}" fill="{INK}" class="ss-count">{counts[i]}</text>'
                     )
         else:
-            lx = left + k * 74
+            lx = left + k * 90
             parts.append(f'<rect x="{lx:.1f}" y="{height - 14:.1f}" width="10" height="4" fill="{colour}"/>')
             parts.append(f'<text x="{lx + 14:.1f}" y="{height - 9:.1f}" fill="{INK}">{esc(name)}: {counts[-1]}</text>')
     parts.append("</svg>")
     return "".join(parts)
 
 
-def narrowing_chart(solution, unknowns: Sequence[str] | None = None, title: str = "") -> str:
-    """:func:`narrowing_svg` of a :class:`~workbench.evidence.engine.Solution` (one line per unknown)."""
+def narrowing_chart(solution, unknowns: Sequence[str] | None = None, title: str = "", large: bool = False) -> str:
+    """:func:`narrowing_svg` of a :class:`~workbench.evidence.engine.Solution` (one line per unknown).
+
+    ``large`` draws the overview of several unknowns: taller, wider steps, at least 480 px wide.
+    """
     ids = list(unknowns) if unknowns is not None else list(solution.project.unknown_ids)
     labels = [step.observation for step in solution.trail]
     statuses = [step.status for step in solution.trail]
     series = {uid: [solution.scope_counts[uid]] + [step.counts[uid] for step in solution.trail] for uid in ids}
+    if large:
+        return narrowing_svg(labels, series, statuses, title=title, height=240.0, step_width=48.0, min_width=480.0)
     return narrowing_svg(labels, series, statuses, title=title)
+
+
+def narrowing_figure(solution, unknowns: Sequence[str] | None = None, title: str = "") -> Figure:
+    """The narrowing chart with a plain-text stand-in (counts per unknown after each observation)."""
+    ids = list(unknowns) if unknowns is not None else list(solution.project.unknown_ids)
+    lines = [title or "Candidates left after each observation"]
+    for uid in ids:
+        counts = [str(solution.scope_counts[uid])] + [f"{s.observation} {s.counts[uid]}" for s in solution.trail]
+        lines.append(f"  {uid}: scope " + ", ".join(counts))
+    return Figure(narrowing_chart(solution, ids, title=title, large=len(ids) > 1), "\n".join(lines))

@@ -31,6 +31,7 @@ __all__ = [
     "STATUS_COLOURS",
     "esc",
     "badge",
+    "live_css",
 ]
 
 FONT = "DejaVu Sans, Segoe UI, Helvetica, Arial, sans-serif"
@@ -68,4 +69,25 @@ def badge(text: str, colour: str, background: str = "#ffffff") -> str:
         f'<span style="display:inline-block;padding:0 6px;border-radius:8px;border:1px solid {colour};'
         f'color:{colour};background:{background};font-size:11px;line-height:16px;white-space:nowrap">'
         f"{esc(text)}</span>"
+    )
+
+
+def live_css() -> str:
+    """Style rules for the live panels (a ``<style>`` element, shown only where the widgets run).
+
+    - A chosen toggle button is filled with the accent colour, the others white:
+      the choice reads at a glance.
+    - The static copy kept beside a live workbench is hidden while the widgets
+      run (in the same notebook cell only), so the page is not shown twice; where
+      the widgets do not run (untrusted notebook, no kernel, a plain viewer) this
+      rule is not there and the static copy is what the reader sees.
+    """
+    return (
+        "<style>"
+        f".ss-live .widget-toggle-button.mod-active{{background:{ACCENT};color:#ffffff;font-weight:600;"
+        f"box-shadow:inset 0 0 0 2px #1d4a41}}"
+        f".ss-live .widget-toggle-button:not(.mod-active){{background:#ffffff;color:{INK};"
+        f"box-shadow:inset 0 0 0 1px {RULE}}}"
+        ".jp-Cell:has(.ss-live) .ss-snapshot, .jp-OutputArea:has(.ss-live) .ss-snapshot{display:none}"
+        "</style>"
     )

@@ -24,6 +24,7 @@ from workbench.display.palette import (
     badge,
     esc,
 )
+from workbench.glossary import field_name, kind_name, observation_text
 
 __all__ = [
     "table_html",
@@ -71,14 +72,8 @@ def format_value(value: Any, unit: str = "") -> str:
 
 
 def observation_values(obs) -> str:
-    """The kind-specific fields of an observation in one line, e.g. ``unknown U1; optically active: no``."""
-    parts = []
-    for spec in obs.SPECS:
-        value = getattr(obs, spec.name)
-        if value is None and not spec.required:
-            continue
-        parts.append(f"{spec.name.replace('_', ' ')}: {format_value(value, spec.unit)}")
-    return "; ".join(parts)
+    """The kind-specific fields of an observation in chemists' words, e.g. ``unknown: U1; optically active: no``."""
+    return observation_text(obs).split(": ", 1)[1]
 
 
 def scope_text(scope) -> str:
@@ -123,7 +118,7 @@ def ledger_html(project, solution=None) -> str:
         rows.append(
             (
                 f"<b>{esc(obs.id)}</b>",
-                esc(obs.KIND),
+                esc(kind_name(obs.KIND)),
                 esc(observation_values(obs)),
                 esc(who),
                 esc(obs.note or ""),
@@ -177,7 +172,7 @@ def conflicts_html(solution) -> str:
     project = solution.project
     items = []
     for group in solution.conflicts:
-        lines = "".join(f"<li>{esc(project.observation(oid).describe())}</li>" for oid in group)
+        lines = "".join(f"<li>{esc(observation_text(project.observation(oid)))}</li>" for oid in group)
         items.append(
             f"<li><b>{esc(', '.join(group))}</b> cannot all hold:<ul style='margin:2px 0 6px 0'>{lines}</ul></li>"
         )
@@ -204,12 +199,19 @@ def conflicts_html(solution) -> str:
     )
 
 
+def _field_words(kind: str, name: str) -> str:
+    """A field as written in the file and, where it differs, as a chemist says it: ``co2 (CO₂ formed)``."""
+    words = field_name(kind, name)
+    return name if words == name.replace("_", " ") else f"{name} ({words})"
+
+
 def kinds_html(types) -> str:
     """The observation kinds and their fields (with units), as a reference table."""
     rows = []
     for kind, cls in types.items():
         fields = "; ".join(
-            f"{s.name}{' [' + s.unit + ']' if s.unit else ''}{'' if s.required else ' (optional)'}" for s in cls.SPECS
+            f"{_field_words(kind, s.name)}{' [' + s.unit + ']' if s.unit else ''}{'' if s.required else ' (optional)'}"
+            for s in cls.SPECS
         )
-        rows.append((kind, cls.TITLE, fields))
-    return table_html(["kind", "what it records", "fields"], rows, cls="ss-kinds")
+        rows.append((kind_name(kind), kind, cls.TITLE, fields))
+    return table_html(["experiment", "kind (in the file)", "what it records", "fields"], rows, cls="ss-kinds")

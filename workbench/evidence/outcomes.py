@@ -53,6 +53,7 @@ from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.predictions import predict as record_of
 from workbench.evidence.observations import OBSERVATION_TYPES, Observation
+from workbench.glossary import UNITS, quantity_text
 
 __all__ = [
     "FLAT_DENSITY",
@@ -249,6 +250,8 @@ def outcome_label(kind: str, value: Any) -> str:
         p, f, h, c = value
         co2 = "" if c is None else f", CO2 {c:g}"
         return f"IO4- {p:g}, HCOOH {f:g}, HCHO {h:g}{co2}"
+    if isinstance(value, (int, float)) and kind in UNITS:
+        return quantity_text(kind, float(value))
     if isinstance(value, float):
         return f"{value:.2f}"
     return str(value)

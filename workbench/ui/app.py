@@ -11,14 +11,14 @@ from __future__ import annotations
 import os
 
 import ipywidgets as w
-from IPython.display import HTML, display
+from IPython.display import display
 
 from workbench.display.board import solution_html
 from workbench.display.experiments import plan_html
 from workbench.display.palette import ACCENT, CONFLICT, FONT, MUTED, esc
 from workbench.display.tables import project_html
 from workbench.evidence.project import Project
-from workbench.ui.base import Notices, snapshot_frame
+from workbench.ui.base import Notices, live, show_live, snapshot_bundle
 from workbench.ui.board import CandidateBoard
 from workbench.ui.chairs import ChairPanel
 from workbench.ui.entry import EvidenceForm
@@ -45,11 +45,15 @@ class Workbench:
         self.header = w.HTML()
         self.tabs = w.Tab(children=[self.board.widget, self.planner.widget, self.chairs.widget, self.project.widget])
         self.tabs.titles = ("Candidates", "What to try next", "Chairs in 3D", "Project")
-        # Side by side where the notebook is wide enough; the candidates wrap below the evidence otherwise.
-        left = w.VBox([self.form.widget, self.ledger.widget], layout=w.Layout(flex="1 1 480px", padding="0 10px 0 0"))
-        right = w.VBox([self.tabs], layout=w.Layout(flex="1 1 560px"))
-        body = w.HBox([left, right], layout=w.Layout(flex_flow="row wrap", align_items="flex-start"))
-        self.widget = w.VBox([self.header, body, self.notices.widget])
+        # Side by side where the notebook is wide enough (about 900 px of cell width: JupyterLab at
+        # 1,400 px with the file browser open); the candidates wrap below the evidence only when narrower.
+        left = w.VBox(
+            [self.form.widget, self.ledger.widget],
+            layout=w.Layout(flex="1 1 400px", min_width="0", padding="0 10px 0 0", overflow="hidden"),
+        )
+        right = w.VBox([self.tabs], layout=w.Layout(flex="1.4 1 480px", min_width="0", overflow="hidden"))
+        body = w.HBox([left, right], layout=w.Layout(flex_flow="row wrap", align_items="flex-start", width="100%"))
+        self.widget = live(w.VBox([self.header, body, self.notices.widget]))
         self._handle = None
         self.session.subscribe(self.notices.guard(lambda _s: self._refresh()))
         self._refresh()
@@ -83,20 +87,20 @@ class Workbench:
     def _refresh(self) -> None:
         self.header.value = self._header_html()
         if self._handle is not None:
-            self._handle.update(HTML(self.snapshot_html()))
+            self._handle.update(snapshot_bundle(self.snapshot_html(), "workbench"), raw=True)
 
     # ------------------------------------------------------------ static copy
     def snapshot_html(self) -> str:
-        """The whole state as static HTML: solution (boards, trail, ledger), project, plan."""
-        parts = [solution_html(self.session.solution), project_html(self.session.project)]
+        """The whole state as static HTML every sanitiser keeps: solution (boards, trail, ledger), project, plan."""
+        parts = [solution_html(self.session.solution, medium="plain"), project_html(self.session.project)]
         if self.planner.plan is not None:
             parts.append(
                 f'<div style="font-family:{FONT};font-weight:600;color:{ACCENT};margin-top:8px">What to try next</div>'
             )
             parts.append(plan_html(self.planner.plan))
         parts.append(self.chairs.snapshot_html())
-        return snapshot_frame("".join(parts), "workbench")
+        return "".join(parts)
 
     def _ipython_display_(self) -> None:
-        display(self.widget)
-        self._handle = display(HTML(self.snapshot_html()), display_id=True)
+        show_live(self.widget, "workbench")
+        self._handle = display(snapshot_bundle(self.snapshot_html(), "workbench"), raw=True, display_id=True)

@@ -16,12 +16,12 @@ from collections.abc import Callable
 from typing import Any
 
 import ipywidgets as w
-from IPython.display import HTML, display
+from IPython.display import display
 
-from workbench.display.palette import ACCENT, CONFLICT, CONFLICT_SOFT, FONT, MUTED, RULE, esc
+from workbench.display.palette import ACCENT, CONFLICT, CONFLICT_SOFT, FONT, MUTED, RULE, esc, live_css
 from workbench.errors import WorkbenchError
 
-__all__ = ["Notices", "Panel", "snapshot_frame", "heading", "dispose"]
+__all__ = ["Notices", "Panel", "snapshot_frame", "heading", "dispose", "live", "show_live", "snapshot_bundle"]
 
 log = logging.getLogger(__name__)
 
@@ -98,13 +98,41 @@ class Notices:
 
 
 def snapshot_frame(inner_html: str, what: str) -> str:
-    """Wrap a static rendition with a line that says what it is."""
+    """Wrap a static rendition with a line that says what it is (hidden while the live panels run)."""
     return (
         f'<details open class="ss-snapshot" style="font-family:{FONT};border-top:1px dashed {RULE};'
         f'margin-top:6px;padding-top:2px"><summary style="font-size:11px;color:{MUTED};cursor:pointer">'
-        f"Static copy of the {esc(what)} (kept in the saved notebook for readers without a running kernel; "
-        f"updated on every change)</summary>{inner_html}</details>"
+        f"Saved view of the {esc(what)} (for readers without a running kernel; the interactive panels "
+        f"need one)</summary>{inner_html}</details>"
     )
+
+
+def snapshot_bundle(inner_html: str, what: str) -> dict[str, str]:
+    """The static copy as a display bundle: sanitiser-safe HTML and a plain-text line (never an object repr)."""
+    return {
+        "text/html": snapshot_frame(inner_html, what),
+        "text/plain": f"[saved view of the {what}: open the notebook in JupyterLab or a notebook viewer to read it]",
+    }
+
+
+def live(widget: w.Widget) -> w.Widget:
+    """``widget`` marked as the live panels, with the style rules that go with them (see ``live_css``)."""
+    box = w.VBox([w.HTML(live_css()), widget])
+    box.add_class("ss-live")
+    return box
+
+
+def show_live(widget: w.Widget, what: str) -> None:
+    """Display ``widget`` with a plain-text stand-in that says what it is (no ``VBox(children=...)`` repr).
+
+    Where widgets cannot be drawn (an untrusted notebook, no kernel) the reader sees the stand-in and,
+    below it, the static copy.
+    """
+    bundle = dict(widget._repr_mimebundle_() or {})
+    bundle["text/plain"] = (
+        f"[interactive {what}: needs a running kernel (and a trusted notebook); the saved view below shows the state]"
+    )
+    display(bundle, raw=True)
 
 
 class Panel:
@@ -119,19 +147,19 @@ class Panel:
         self.widget: w.Widget = w.VBox()
 
     def snapshot_html(self) -> str:
-        """Static HTML of what the panel shows now (pure display-layer calls only)."""
+        """Static HTML of what the panel shows now (pure display-layer calls; markup every sanitiser keeps)."""
         return ""
 
     def refresh_snapshot(self) -> None:
         """Update every static copy already displayed."""
         if not self._handles:
             return
-        html = snapshot_frame(self.snapshot_html(), self.what)
+        bundle = snapshot_bundle(self.snapshot_html(), self.what)
         for handle in self._handles:
-            handle.update(HTML(html))
+            handle.update(bundle, raw=True)
 
     def _ipython_display_(self) -> None:
-        display(self.widget)
-        handle = display(HTML(snapshot_frame(self.snapshot_html(), self.what)), display_id=True)
+        show_live(live(self.widget), self.what)
+        handle = display(snapshot_bundle(self.snapshot_html(), self.what), raw=True, display_id=True)
         if handle is not None:
             self._handles.append(handle)

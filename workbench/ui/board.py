@@ -10,11 +10,13 @@ from __future__ import annotations
 import ipywidgets as w
 
 from workbench.chem.names import display_name
+from workbench.chem.order import in_configurational_order
 from workbench.chem.parse import resolve
 from workbench.display.board import board_html, solution_html
 from workbench.display.chart import narrowing_chart
-from workbench.display.palette import ACCENT, FONT, INK, esc
+from workbench.display.palette import ACCENT, CONFLICT, FONT, INK, esc
 from workbench.display.tables import conflicts_html
+from workbench.errors import WorkbenchError
 from workbench.ui.base import Panel, dispose, heading
 
 __all__ = ["CandidateBoard"]
@@ -79,7 +81,7 @@ class CandidateBoard(Panel):
             titles.append(f"{uid} ({len(solution.survivors[uid])})")
         self.tabs.titles = tuple(titles)
         if len(self.pages) > 1:
-            self.overview.value = narrowing_chart(solution, title="All unknowns")
+            self.overview.value = narrowing_chart(solution, title="All unknowns", large=True)
         else:
             self.overview.value = ""
         if self.query.value.strip():
@@ -88,16 +90,23 @@ class CandidateBoard(Panel):
 
     def survivor_names(self, uid: str) -> list[str]:
         """Names of the survivors of ``uid`` as the board shows them."""
-        return [display_name(c) for c in self.session.solution.survivors[uid]]
+        return [display_name(c) for c in in_configurational_order(self.session.solution.survivors[uid])]
 
     def locate(self) -> str:
         """Answer "where is ...?" for the text in the query box; returns the answer HTML."""
         text = self.query.value.strip()
         uid = self.query_unknown.value
+        self.answer.value = ""  # never leave the answer to an earlier question on show
         if not text or uid is None:
-            self.answer.value = ""
             return ""
-        chain = resolve(text)
+        try:
+            chain = resolve(text)
+        except WorkbenchError as err:
+            self.answer.value = (
+                f'<div class="ss-answer" style="font-family:{FONT};font-size:12.5px;color:{CONFLICT}">'
+                f"{esc(text)}: {esc(err)}</div>"
+            )
+            return self.answer.value
         name = display_name(chain) if chain.is_sugar else text
         solution = self.session.solution
         if chain in solution.survivors[uid]:
@@ -110,8 +119,8 @@ class CandidateBoard(Panel):
                 verdict = f"not a survivor of {esc(uid)}: the evidence is contradictory"
             else:
                 verdict = f"not in the scope of {esc(uid)}"
-        self.answer.value = f'<div style="font-family:{FONT};font-size:12.5px;color:{INK}">{esc(name)}: {verdict}</div>'
+        self.answer.value = f'<div class="ss-answer" style="font-family:{FONT};font-size:12.5px;color:{INK}">{esc(name)}: {verdict}</div>'
         return self.answer.value
 
     def snapshot_html(self) -> str:
-        return solution_html(self.session.solution, self.limit)
+        return solution_html(self.session.solution, self.limit, medium="plain")

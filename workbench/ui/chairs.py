@@ -2,7 +2,8 @@
 
 Geometry, chair energies, couplings and anomer fractions all come from
 :mod:`workbench.conformers` (RDKit ETKDG + MMFF94, Angyal's scheme, the
-Haasnoot-de Leeuw-Altona equation). The 3D view is py3Dmol; axial groups
+Haasnoot-de Leeuw-Altona equation). The 3D view is 3Dmol.js, shipped with the package and inlined in the page
+(no network; :mod:`workbench.display.molview`); axial groups
 carry an orange sphere and label, equatorial ones a green one. Beside it, the
 same chair drawn flat (SVG) and the predictions, which are also what the
 notebook keeps as its static copy.
@@ -10,27 +11,37 @@ notebook keeps as its static copy.
 
 from __future__ import annotations
 
+import itertools
+import uuid
 from collections.abc import Sequence
 from dataclasses import dataclass
 
 import ipywidgets as w
-import py3Dmol
 from IPython import get_ipython
 from IPython.display import display
 from rdkit import Chem
 
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
+from workbench.chem.order import in_configurational_order
 from workbench.chem.smiles import RingForm, ring_forms
 from workbench.conformers import conformer_mol, ring_conformers, ring_layout
+from workbench.data import viewer_library
 from workbench.display.chairs import AXIAL_COLOUR, EQUATORIAL_COLOUR, chair_svg, ring_predictions_html
+from workbench.display.molview import Mark, Scene, viewer_html
 from workbench.display.palette import FONT, INK, MUTED, RULE, esc
+from workbench.glossary import conformation_html, conformation_text, term
 from workbench.ui.base import Panel, heading
 
 __all__ = ["ChairPanel", "ChairView", "chair_views", "view_3d"]
 
 _FORMS = ("alpha_pyranose", "beta_pyranose", "alpha_furanose", "beta_furanose")
-_CHAIRS = (("lower energy", ""), ("4C1 (5C2 for 2-ketoses)", "A"), ("1C4 (2C5)", "B"))
+_CHAIRS = (
+    ("lower energy", ""),
+    (conformation_text("4C1 (5C2 for 2-ketoses)"), "A"),
+    (conformation_text("1C4 (2C5)"), "B"),
+)
+_VIEW_IDS = (f"{uuid.uuid4().hex[:8]}-{n}" for n in itertools.count(1))
 MAX_SIDE_BY_SIDE = 4
 
 
@@ -80,7 +91,7 @@ def chair_views(chains: Sequence, form_key: str, chair: str | None) -> tuple[lis
     for chain in chains:
         name = display_name(chain)
         if form not in ring_forms(chain):
-            notes.append(f"{name} has no {form_key.replace('_', ' ')} form")
+            notes.append(f"{name} has no {term(form_key)} form")
             continue
         wanted = chair if form.ring == "pyranose" else None
         found = ring_conformers(chain, form)
@@ -105,43 +116,31 @@ def chair_views(chains: Sequence, form_key: str, chair: str | None) -> tuple[lis
     return views, notes
 
 
-def view_3d(views: Sequence[ChairView], width: int = 300, height: int = 300):
-    """A py3Dmol viewer grid, one cell per view, with axial/equatorial groups marked."""
-    n = max(1, len(views))
-    viewer = py3Dmol.view(width=width * n, height=height, viewergrid=(1, n), linked=False)
-    for i, v in enumerate(views):
-        cell = (0, i)
-        viewer.addModel(v.molblock, "mol", viewer=cell)
-        viewer.setStyle({}, {"stick": {"radius": 0.14}, "sphere": {"scale": 0.18}}, viewer=cell)
-        for marks, colour, word in ((v.axial, AXIAL_COLOUR, "ax"), (v.equatorial, EQUATORIAL_COLOUR, "eq")):
-            for label, idx in marks:
+def view_3d(views: Sequence[ChairView], width: int = 300, height: int = 300, uid: str | None = None) -> str:
+    """HTML of a 3D viewer row, one cell per view, axial/equatorial groups marked (library inlined, no network)."""
+    scenes = []
+    for v in views:
+        marks = []
+        for group, colour, word in ((v.axial, AXIAL_COLOUR, "ax"), (v.equatorial, EQUATORIAL_COLOUR, "eq")):
+            for label, idx in group:
                 x, y, z = v.coords[idx]
-                centre = {"x": x, "y": y, "z": z}
-                viewer.addSphere({"center": centre, "radius": 0.42, "color": colour, "opacity": 0.55}, viewer=cell)
-                viewer.addLabel(
-                    f"{label} {word}",
-                    {
-                        "position": centre,
-                        "fontSize": 11,
-                        "fontColor": "white",
-                        "backgroundColor": colour,
-                        "backgroundOpacity": 0.85,
-                    },
-                    viewer=cell,
-                )
-        viewer.setBackgroundColor("white", viewer=cell)
-        viewer.zoomTo(viewer=cell)
-    return viewer
+                marks.append(Mark(f"{label} {word}", x, y, z, colour))
+        caption = f"{v.name}, {term(v.form.key)}" + (f", {conformation_text(v.shape)}" if v.shape else "")
+        scenes.append(Scene(caption, v.molblock, tuple(marks)))
+    return viewer_html(scenes, viewer_library(), uid or next(_VIEW_IDS), width, height)
 
 
-def views_html(views: Sequence[ChairView], notes: Sequence[str] = ()) -> str:
-    """Static rendition: per view the flat chair (pyranoses), the groups axial/equatorial, the predictions."""
+def views_html(views: Sequence[ChairView], notes: Sequence[str] = (), medium: str = "svg") -> str:
+    """Static rendition: per view the flat chair (pyranoses), the groups axial/equatorial, the predictions.
+
+    ``medium="plain"`` leaves the chair drawing out (it is SVG, which sanitisers strip) and keeps the words.
+    """
     from workbench.conformers.chair import chair_label
 
     cards = []
     for v in views:
         flat = ""
-        if v.form.ring == "pyranose" and v.chair:
+        if v.form.ring == "pyranose" and v.chair and medium == "svg":
             flat = chair_svg(ring_layout(v.chain, v.form), v.chair)
         anomeric = 1 if v.chain.carbonyl == "aldose" else 2
         shape = chair_label(v.chair, anomeric) if v.chair else v.shape
@@ -157,7 +156,7 @@ def views_html(views: Sequence[ChairView], notes: Sequence[str] = ()) -> str:
             f'<div class="ss-chair-card" data-name="{esc(v.name)}" style="display:inline-block;vertical-align:top;'
             f"margin:4px;padding:5px 8px;border:1px solid {RULE};border-radius:6px;max-width:360px;"
             f'font-family:{FONT};color:{INK}"><div style="font-weight:600">{esc(v.name)}</div>'
-            f'<div style="font-size:12px;color:{MUTED}">{esc(v.form.key.replace("_", " "))}, {esc(shape)} '
+            f'<div style="font-size:12px;color:{MUTED}">{esc(term(v.form.key))}, {conformation_html(shape)} '
             f"(MMFF94 geometry)</div>{flat}{marks}{ring_predictions_html(v.chain, v.form)}</div>"
         )
     note = "".join(f'<div style="font-size:12px;color:{MUTED}">{esc(n)}.</div>' for n in notes)
@@ -173,11 +172,11 @@ class ChairPanel(Panel):
         super().__init__(session)
         self.views: list[ChairView] = []
         self.notes: list[str] = []
-        self.viewer = None
+        self.viewer: str | None = None
         self.unknown = w.Dropdown(description="unknown", layout=w.Layout(width="200px"))
         self.survivors = w.SelectMultiple(description="survivors", rows=6, layout=w.Layout(width="340px"))
         self.form = w.Dropdown(
-            options=[(k.replace("_", " "), k) for k in _FORMS],
+            options=[(term(k), k) for k in _FORMS],
             value="beta_pyranose",
             description="ring form",
             layout=w.Layout(width="260px"),
@@ -219,12 +218,16 @@ class ChairPanel(Panel):
         uid = self.unknown.value
         if uid is None:
             return
-        chains = self.session.solution.survivors[uid]
+        chains = in_configurational_order(self.session.solution.survivors[uid])
         names = [display_name(c) for c in chains]
         if list(self.survivors.options) != names:
-            kept = [n for n in self.survivors.value if n in names]
-            self.survivors.options = names
-            self.survivors.value = tuple(kept or names[: min(3, len(names))])
+            kept = tuple(n for n in self.survivors.value if n in names) or tuple(names[: min(3, len(names))])
+            # options and selection travel to the browser in one message: no moment where the
+            # selection points past the end of the new options (a console error in the browser)
+            with self.survivors.hold_sync():
+                self.survivors.value = ()
+                self.survivors.options = names
+                self.survivors.value = kept
 
     def selected_chains(self) -> list:
         """The survivors chosen in the list (at most :data:`MAX_SIDE_BY_SIDE`)."""
@@ -244,8 +247,9 @@ class ChairPanel(Panel):
         if self.views:
             self.viewer = view_3d(self.views)
             if get_ipython() is not None:  # outside a kernel (tests, scripts) there is nowhere to draw
+                names = ", ".join(v.name for v in self.views)
                 with self.out3d:
-                    display(self.viewer)
+                    display({"text/html": self.viewer, "text/plain": f"3D chairs of {names}"}, raw=True)
         self.notices.clear()
         self.refresh_snapshot()
 
@@ -255,4 +259,4 @@ class ChairPanel(Panel):
                 f'<div style="font-family:{FONT};font-size:12px;color:{MUTED}">No chairs drawn yet '
                 f"(choose survivors and press Show in 3D).</div>"
             )
-        return views_html(self.views, self.notes)
+        return views_html(self.views, self.notes, medium="plain")

@@ -19,6 +19,7 @@ from workbench.display.palette import CONFLICT, FONT, esc
 from workbench.display.tables import kinds_html
 from workbench.errors import ObservationError
 from workbench.evidence.observations import OBSERVATION_TYPES, Observation
+from workbench.glossary import kind_name
 from workbench.ui.base import Panel, dispose, heading
 from workbench.ui.fields import FieldEditor, editor_for
 
@@ -34,7 +35,7 @@ class EvidenceForm(Panel):
         super().__init__(session)
         self.sugars = known_names()
         self.kind = w.Dropdown(
-            options=[(f"{k.replace('_', ' ')}: {cls.TITLE}", k) for k, cls in OBSERVATION_TYPES.items()],
+            options=[(f"{kind_name(k)}: {cls.TITLE}", k) for k, cls in OBSERVATION_TYPES.items()],
             value=kind,
             description="experiment",
             layout=w.Layout(width="100%", max_width="560px"),
@@ -87,7 +88,7 @@ class EvidenceForm(Panel):
         unknowns = list(self.session.project.unknown_ids)
         for editor in self.editors.values():
             dispose(editor.widget)
-        self.editors = {spec.name: editor_for(spec, unknowns, self.sugars) for spec in cls.SPECS}
+        self.editors = {spec.name: editor_for(spec, unknowns, self.sugars, cls.KIND) for spec in cls.SPECS}
         for name, editor in self.editors.items():
             if keep and keep.get(name) is not None:
                 editor.set(keep[name])
@@ -166,7 +167,7 @@ class EvidenceForm(Panel):
             return None
         replaced = self.editing == obs.id
         self.session.record(obs)
-        self.notices.info(f"{'Updated' if replaced else 'Recorded'} {obs.id} ({obs.KIND}).")
+        self.notices.info(f"{'Updated' if replaced else 'Recorded'} {obs.id} ({kind_name(obs.KIND)}).")
         self.reset(keep_message=True)
         return obs
 
@@ -202,7 +203,7 @@ class EvidenceForm(Panel):
         names = {s.name for s in OBSERVATION_TYPES[kind].SPECS}
         self._build_fields({k: v for k, v in fields.items() if k in names})
         self.id_box.value = self.session.project.next_id()
-        self.notices.info(f"Prepared a {kind.replace('_', ' ')} entry: fill in the result when you have it.")
+        self.notices.info(f"Prepared a {kind_name(kind)} entry: fill in the result when you have it.")
 
     def snapshot_html(self) -> str:
         return kinds_html(OBSERVATION_TYPES)

@@ -14,6 +14,7 @@ from typing import Any
 import ipywidgets as w
 
 from workbench.display.palette import CONFLICT, FONT, MUTED, esc
+from workbench.glossary import field_name, term
 
 __all__ = ["FieldEditor", "editor_for"]
 
@@ -43,7 +44,7 @@ def _parse_number(text: str, integer: bool) -> Any:
 class FieldEditor:
     """Label, control and inline message for one field of an observation kind."""
 
-    def __init__(self, spec, unknowns: Sequence[str] = (), sugars: Sequence[str] = ()) -> None:
+    def __init__(self, spec, unknowns: Sequence[str] = (), sugars: Sequence[str] = (), kind: str = "") -> None:
         self.spec = spec
         self.unknowns = list(unknowns)
         self.sugars = list(sugars)
@@ -53,7 +54,7 @@ class FieldEditor:
         optional = "" if spec.required else " (optional)"
         self.label = w.HTML(
             f'<div style="font-family:{FONT};font-size:12.5px" title="{esc(spec.doc)}">'
-            f"{esc(spec.name.replace('_', ' '))}{esc(unit)}{esc(optional)}</div>",
+            f"{esc(field_name(kind, spec.name))}{esc(unit)}{esc(optional)}</div>",
             layout=_label_layout(),
         )
         hint = w.HTML(f'<div style="font-family:{FONT};font-size:11px;color:{MUTED}">{esc(spec.doc)}</div>')
@@ -97,9 +98,10 @@ class FieldEditor:
             self._picker.observe(lambda change: self._add_member(None), names="value")
             return w.TagsInput(value=[], allow_duplicates=False, layout=w.Layout(width="420px"))
         if spec.type == "choice":
+            labelled = [(term(c), c) for c in spec.choices]
             if len(spec.choices) <= 4:
-                return w.ToggleButtons(options=list(spec.choices), value=None, style={"button_width": "auto"})
-            return w.Dropdown(options=list(spec.choices), value=None, layout=_wide_layout())
+                return w.ToggleButtons(options=labelled, value=None, style={"button_width": "auto"})
+            return w.Dropdown(options=labelled, value=None, layout=_wide_layout())
         if spec.type == "bool":
             return w.ToggleButtons(options=[("yes", True), ("no", False)], value=None, style={"button_width": "60px"})
         if spec.type in ("int", "float"):
@@ -163,6 +165,6 @@ class FieldEditor:
         self.control.observe(callback, names="value")
 
 
-def editor_for(spec, unknowns: Sequence[str] = (), sugars: Sequence[str] = ()) -> FieldEditor:
-    """The editor for one field spec."""
-    return FieldEditor(spec, unknowns, sugars)
+def editor_for(spec, unknowns: Sequence[str] = (), sugars: Sequence[str] = (), kind: str = "") -> FieldEditor:
+    """The editor for one field spec (``kind`` chooses the field's label, e.g. "[α]D" for a rotation's value)."""
+    return FieldEditor(spec, unknowns, sugars, kind)

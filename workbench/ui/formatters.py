@@ -28,22 +28,26 @@ def solution_summary(solution) -> str:
 
 
 def register_formatters(shell=None) -> bool:
-    """Register text/html formatters for Solution, Project and Plan; False when no IPython shell runs."""
+    """Register HTML and text formatters for Solution, Project, Plan and Chain; False when no IPython shell runs."""
     if shell is None:
         from IPython import get_ipython
 
         shell = get_ipython()
     if shell is None:
         return False
+    from workbench.chem.chain import Chain
     from workbench.display.board import solution_html
     from workbench.display.experiments import plan_html
+    from workbench.display.fischer import caption_of
+    from workbench.display.plain import fischer_text
     from workbench.display.tables import project_html
     from workbench.evidence.engine import Solution
     from workbench.evidence.planner import Plan
     from workbench.evidence.project import Project
 
     html = shell.display_formatter.formatters["text/html"]
-    html.for_type(Solution, solution_html)
+    # markup every notebook sanitiser keeps (Fischer projections in characters): readable untrusted too
+    html.for_type(Solution, lambda solution: solution_html(solution, medium="plain"))
     html.for_type(Project, project_html)
     html.for_type(Plan, plan_html)
     plain = shell.display_formatter.formatters["text/plain"]
@@ -55,5 +59,7 @@ def register_formatters(shell=None) -> bool:
         ),
     )
     plain.for_type(Plan, lambda obj, p, cycle: p.text(f"Plan: {len(obj.experiments)} experiment(s) ranked"))
+    # where the SVG drawing is not shown (untrusted, plain viewers) the chain reads as a Fischer projection
+    plain.for_type(Chain, lambda obj, p, cycle: p.text(f"{caption_of(obj)}\n{fischer_text(obj)}"))
     log.debug("registered HTML formatters for Solution, Project and Plan")
     return True

@@ -13,6 +13,7 @@ import ipywidgets as w
 
 from workbench.display.palette import FONT, INK, MUTED, RULE, STATUS_COLOURS, badge, esc
 from workbench.display.tables import ledger_html, observation_values
+from workbench.glossary import kind_name
 from workbench.ui.base import Panel, dispose, heading
 
 __all__ = ["LedgerPanel"]
@@ -58,7 +59,7 @@ class LedgerPanel(Panel):
         note = f'<div style="color:{MUTED};font-size:11.5px">{esc(obs.note)}</div>' if obs.note else ""
         text = w.HTML(
             f'<div style="font-family:{FONT};font-size:12.5px;color:{INK};line-height:1.3">'
-            f"<b>{esc(obs.id)}</b> {esc(obs.KIND.replace('_', ' '))} "
+            f"<b>{esc(obs.id)}</b> {esc(kind_name(obs.KIND))} "
             f"{badge(_STATUS_WORDS.get(status, status), STATUS_COLOURS.get(status, MUTED))} "
             f'<span style="color:{MUTED}">{esc(effect)}</span><br>{esc(observation_values(obs))}'
             f"{'<br><span style=color:' + MUTED + '>' + esc(who) + '</span>' if who else ''}{note}</div>",

@@ -14,6 +14,7 @@ from collections.abc import Callable
 import ipywidgets as w
 
 from workbench.display.experiments import plan_html
+from workbench.glossary import kind_name
 from workbench.ui.base import Panel, heading
 
 __all__ = ["NextExperimentPanel"]
@@ -79,23 +80,36 @@ class NextExperimentPanel(Panel):
         unknown = None if self.unknown.value in (None, _ALL) else self.unknown.value
         self.plan = self.session.plan(unknown=unknown, lookahead=self.lookahead.value, ranking=self.ranking.value)
         self.output.value = plan_html(self.plan, self.limit)
-        self.choice.options = [
-            (f"{i}. {exp.title or exp.kind}", i - 1) for i, exp in enumerate(self.plan.experiments[: self.limit], 1)
+        options = [
+            (f"{i}. {exp.title or kind_name(exp.kind)}", i - 1)
+            for i, exp in enumerate(self.plan.experiments[: self.limit], 1)
         ]
+        previous = self.choice.value
+        with self.choice.hold_sync():
+            self.choice.options = options
+            # the best suggestion is chosen unless the chemist had chosen another that is still offered
+            self.choice.value = (
+                previous if previous is not None and previous < len(options) else (0 if options else None)
+            )
         self.prepare_button.disabled = not self.plan.experiments
         self.refresh_snapshot()
         return self.plan
 
     def prepare(self) -> None:
         """Hand the chosen suggestion to the evidence form (kind and defining fields; result left blank)."""
-        if self.plan is None or self.choice.value is None:
-            self.notices.info("Rank first, then choose a suggestion.")
+        if self.plan is None:
+            self.rank()
+        assert self.plan is not None
+        if not self.plan.experiments:
+            self.notices.info("No experiment left to suggest.")
             return
-        exp = self.plan.experiments[self.choice.value]
+        index = self.choice.value if self.choice.value is not None else 0
+        exp = self.plan.experiments[index]
         if self.on_prepare is None:
             self.notices.info("Preparing an entry needs the evidence form (use the full workbench).")
             return
         self.on_prepare(exp.kind, dict(exp.fields))
+        self.notices.info(f"Prepared: {exp.title or kind_name(exp.kind)}. Fill in the result under 'Record a result'.")
 
     def snapshot_html(self) -> str:
         if self.plan is None:
