@@ -44,4 +44,5 @@ def test_display_layer_report_and_lab_preparation_import_no_ui_library():
 
 def test_ui_package_is_where_the_widget_libraries_come_in():
     result = _probe(["workbench.ui.app"])
-    assert {"ipywidgets", "IPython", "py3Dmol"} <= set(result["ui"])
+    assert {"ipywidgets", "IPython"} <= set(result["ui"])
+    assert "py3Dmol" not in result["ui"]  # the 3D viewer is our own inlined 3Dmol.js page, never a CDN loader

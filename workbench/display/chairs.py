@@ -156,7 +156,8 @@ def chair_figure(layout, chair: str, caption: str | None = None) -> Figure:
     from workbench.conformers.chair import axial_face, chair_label
 
     svg = chair_svg(layout, chair, caption)
-    axial, equatorial = [], []
+    axial: list[str] = []
+    equatorial: list[str] = []
     for p in range(1, 6):
         up_axial = axial_face(chair, p)
         for face in ("up", "down"):

@@ -13,7 +13,7 @@ of ``<span>`` widths. Pure: every function returns ``str``.
 from __future__ import annotations
 
 import math
-from collections.abc import Iterable, Sequence
+from collections.abc import Iterable, Mapping, Sequence
 
 from workbench.chem.chain import Chain
 from workbench.display.fischer import caption_of, fischer_rows
@@ -155,7 +155,7 @@ def plain_card(
 
 
 def narrowing_table(
-    labels: Sequence[str], series: dict[str, Sequence[int]], statuses: Sequence[str] = (), bar_px: int = 160
+    labels: Sequence[str], series: Mapping[str, Sequence[int]], statuses: Sequence[str] = (), bar_px: int = 160
 ) -> str:
     """Candidates left after each observation as a table of bars (log scale: one halving, one equal step).
 

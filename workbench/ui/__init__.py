@@ -1,4 +1,4 @@
-"""Notebook views (ipywidgets, py3Dmol): the only package that imports UI libraries.
+"""Notebook views (ipywidgets, IPython display): the only package that imports UI libraries.
 
 Every panel is a view over a :class:`Session`; all computation is a call into
 the core (:mod:`workbench.evidence`, :mod:`workbench.conformers`) and all
