@@ -313,7 +313,7 @@ def _quantity_verdict(obs: Observation, chain: Chain) -> Verdict:
         )
     if found.se is None:
         note = "; ".join(found.flags)
-        return Verdict(True, f"{kind}: {note} (predicted {found.value:.3g} for {name})", True, flat)
+        return Verdict(True, f"{kind}: {note} (predicted {found.value:.3g}{_unit(kind)} for {name})", True, flat)
     s = math.sqrt(sigma**2 + found.se**2)
     d = float(observed) - found.value
     z = d / s
@@ -321,13 +321,20 @@ def _quantity_verdict(obs: Observation, chain: Chain) -> Verdict:
     if abs(z) > REMOVAL_K:
         return Verdict(
             False,
-            f"predicted {found.value:.3g} +/- {found.se:.2g} ({found.sugar_class}), observed {float(observed):.3g} "
-            f"+/- {sigma:.2g}: {abs(z):.1f} combined standard errors apart (more than {REMOVAL_K:g})",
+            f"predicted {found.value:.3g} +/- {found.se:.2g}{_unit(kind)} ({found.sugar_class}), observed "
+            f"{float(observed):.3g} +/- {sigma:.2g}{_unit(kind)}: {abs(z):.1f} combined standard errors apart "
+            f"(more than {REMOVAL_K:g})",
             likelihood=0.0,
             z=z,
         )
     reason = f"{kind}: {'; '.join(found.flags)}" if flagged else ""
     return Verdict(True, reason, flagged, _gauss(d, s), z)
+
+
+def _unit(kind: str) -> str:
+    """The unit written after a quantity of ``kind`` in a reason (" Hz", "°", or nothing)."""
+    unit = UNITS.get(kind, "")
+    return unit if unit in ("", "°") else f" {unit}"
 
 
 def _periodate_verdict(obs: Observation, chain: Chain) -> Verdict:
