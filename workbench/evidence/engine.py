@@ -485,7 +485,8 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
     off = tuple(disabled)
     active = [o for o in project.observations if o.id not in off]
     scope = _scope_domains(project)
-    current: dict[str, tuple[Chain, ...]] = {k: tuple(v) for k, v in scope.items()}
+    # the catalogue's own cached tuples: the outcome tables know their rows from earlier solves
+    current: dict[str, tuple[Chain, ...]] = {u.id: catalogue(u.scope) for u in project.unknowns}
     applied: list[Observation] = []
     trail: list[TrailStep] = []
     flags: dict[str, dict[Chain, list[str]]] = {u: {} for u in project.unknown_ids}

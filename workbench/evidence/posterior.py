@@ -47,6 +47,7 @@ from collections.abc import Callable, Hashable, Iterable, Mapping, Sequence
 from dataclasses import dataclass, field
 
 from workbench.chem.chain import Chain
+from workbench.evidence import tables
 from workbench.evidence.network import Binary, components, enumerate_solutions
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import fits, flat_likelihood, weight
@@ -106,8 +107,10 @@ def unary_weights(
         if not obs.UNARY or obs.unknown not in out:
             continue
         mine = out[obs.unknown]
-        for chain in mine:
-            verdict = fits(obs, chain)
+        chains = list(mine)
+        # a logic outcome's verdict depends only on the predicted value: judged once per value (outcome tables)
+        judged = tables.verdicts(obs, chains, fits) or [fits(obs, chain) for chain in chains]
+        for chain, verdict in zip(chains, judged, strict=True):
             mine[chain] *= weight(obs, verdict) if mixed else verdict.likelihood
     return out
 

@@ -64,6 +64,7 @@ __all__ = [
     "save",
     "standard_keys",
     "values",
+    "verdicts",
     "warm",
 ]
 
@@ -478,6 +479,22 @@ def keep(obs: Any, chains: Sequence[Chain], verdict: Callable[[Any, Chain], Any]
     ok_codes = [code for code, i in zip(uniq.tolist(), first.tolist(), strict=True) if verdict(obs, chains[i]).fits]
     mask = np.isin(got, ok_codes)
     return [chains[i] for i in np.flatnonzero(mask).tolist()]
+
+
+def verdicts(obs: Any, chains: Sequence[Chain], verdict: Callable[[Any, Chain], Any]) -> list[Any] | None:
+    """``verdict(obs, chain)`` for every chain, judging each distinct predicted value once.
+
+    Candidates with the same value share one verdict object (its reason may
+    name the representative: use it for the outcome, not for wording). None
+    when the observation has no column (the caller judges every chain).
+    """
+    key = observation_key(obs)
+    if key is None or obs.KIND in ESTIMATED or not chains:
+        return None
+    got, _ = _STORE.codes(key, chains)
+    uniq, first = np.unique(got, return_index=True)
+    judged = {code: verdict(obs, chains[i]) for code, i in zip(uniq.tolist(), first.tolist(), strict=True)}
+    return [judged[code] for code in got.tolist()]
 
 
 def warm(chains: Sequence[Chain], keys: Iterable[str] | None = None) -> None:
