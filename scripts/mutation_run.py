@@ -9,13 +9,13 @@ What it does:
 
 1. copies ``workbench/``, ``tests/`` and ``pyproject.toml`` into a scratch folder, so that a run
    that is interrupted never leaves a mutated file in the working tree;
-2. writes a cosmic-ray configuration there and lets ``cosmic-ray init`` list every mutation of the
-   chosen modules (default: every module of ``workbench/chem`` and ``workbench/evidence``);
+2. writes one cosmic-ray configuration per module there and lets ``cosmic-ray init`` list every
+   mutation of the chosen modules (default: every module of ``workbench/chem`` and ``workbench/evidence``);
 3. skips the operators that only make noise (bit and shift operators, ``is`` comparisons, variable
    shuffling, removing a decorator such as ``@cache``) and, with ``--sample N``, keeps a seeded random
    sample of N mutations spread over the modules in proportion to their size;
-4. runs each mutation against a fast targeted test subset (``pytest -x``) until done or until
-   ``--minutes`` of wall time have passed;
+4. runs each mutation against a fast test subset targeted at its module (``MODULE_TESTS``,
+   ``pytest -x``), module after module, each module getting its share of ``--minutes`` of wall time;
 5. prints the score (killed / tested) and every surviving mutation with its file, line, operator and
    the source line, and writes the same as JSON (``--out``).
 
@@ -35,29 +35,41 @@ import subprocess
 import sys
 import tempfile
 import time
-from collections import defaultdict
 from pathlib import Path
+from typing import Any
 
 ROOT = Path(__file__).resolve().parent.parent
 DEFAULT_PACKAGES = ("workbench/chem", "workbench/evidence")
-# Tests that exercise the chemistry and evidence layers and run in well under a minute.
-DEFAULT_TESTS = (
-    "tests/test_reactions.py",
-    "tests/test_periodate.py",
-    "tests/test_catalogue.py",
-    "tests/test_smiles.py",
-    "tests/test_names.py",
-    "tests/test_parse.py",
-    "tests/test_predictions.py",
-    "tests/test_engine.py",
-    "tests/test_planner.py",
-    "tests/test_project.py",
-    "tests/test_one_rule.py",
-    "tests/test_blind_spots.py",
-    "tests/test_anomeric_reference.py",
-    "tests/test_names_in_use.py",
-    "tests/test_residue_chem.py",
-)
+# Fast targeted tests per module (file stem); a module not listed gets FALLBACK_TESTS.
+_CHEM = ("test_reactions", "test_one_rule", "test_blind_spots", "test_predictions")
+MODULE_TESTS: dict[str, tuple[str, ...]] = {
+    "reactions": _CHEM,
+    "predictions": ("test_one_rule", "test_predictions", "test_blind_spots", "test_reactions"),
+    "periodate": ("test_periodate", "test_blind_spots", "test_predictions"),
+    "smiles": ("test_smiles", "test_blind_spots", "test_anomeric_reference", "test_reactions"),
+    "chain": ("test_smiles", "test_catalogue", "test_blind_spots", "test_reactions"),
+    "catalogue": ("test_catalogue", "test_one_rule", "test_smiles"),
+    "names": ("test_names", "test_names_in_use", "test_parse"),
+    "parse": ("test_parse", "test_names", "test_names_in_use"),
+    "symbols": ("test_names_in_use", "test_names", "test_parse"),
+    "derivatives": ("test_modified_sugars", "test_reactions", "test_predictions"),
+    "methylation": ("test_residue_chem", "test_residue_engine"),
+    "residue": ("test_residue_chem", "test_residue_engine"),
+    "residue_periodate": ("test_residue_chem", "test_residue_engine"),
+    "residue_outcomes": ("test_residue_engine", "test_residue_chem"),
+    "engine": ("test_blind_spots", "test_engine", "test_one_rule", "test_samples"),
+    "network": ("test_blind_spots", "test_engine"),
+    "outcomes": ("test_blind_spots", "test_one_rule", "test_engine", "test_samples"),
+    "planner": ("test_planner", "test_one_rule"),
+    "costs": ("test_planner", "test_report"),
+    "observations": ("test_project", "test_engine", "test_schema"),
+    "project": ("test_project", "test_schema", "test_engine"),
+    "schema": ("test_schema", "test_project"),
+    "merge": ("test_merge", "test_project"),
+    "rivals": ("test_report", "test_engine"),
+    "tables": ("test_tables", "test_engine"),
+}
+FALLBACK_TESTS = ("test_engine", "test_predictions", "test_project")
 # Operators whose mutants are almost all crashes or equivalents in this code base.
 EXCLUDED_OPERATORS = (
     r"core/ReplaceBinaryOperator_.*_(BitOr|BitAnd|BitXor|LShift|RShift|Pow|Mod|FloorDiv)",
@@ -89,12 +101,18 @@ def _scratch_copy() -> Path:
     return work
 
 
+def _tests_for(module: str, chosen: list[str] | None) -> list[str]:
+    if chosen:
+        return chosen
+    stem = Path(module).stem
+    return [f"tests/{t}.py" for t in MODULE_TESTS.get(stem, FALLBACK_TESTS) if (ROOT / "tests" / f"{t}.py").exists()]
+
+
 def _test_command(tests: list[str]) -> str:
-    present = [t for t in tests if (ROOT / t).exists()]
-    return f"{sys.executable} -m pytest -x -q -p no:cacheprovider --no-header " + " ".join(present)
+    return f"{sys.executable} -m pytest -x -q -p no:cacheprovider --no-header " + " ".join(tests)
 
 
-def _write_config(work: Path, modules: list[str], tests: list[str], timeout: float) -> Path:
+def _write_config(work: Path, name: str, modules: list[str], tests: list[str], timeout: float) -> Path:
     mods = ", ".join(json.dumps(m) for m in modules)
     excluded = ", ".join(json.dumps(e) for e in EXCLUDED_OPERATORS)
     text = (
@@ -106,7 +124,7 @@ def _write_config(work: Path, modules: list[str], tests: list[str], timeout: flo
         '\n[cosmic-ray.distributor]\nname = "local"\n'
         f"\n[cosmic-ray.filters.operators-filter]\nexclude-operators = [{excluded}]\n"
     )
-    config = work / "mutation.toml"
+    config = work / f"{name}.toml"
     config.write_text(text)
     return config
 
@@ -128,20 +146,14 @@ def _sample(session: Path, n: int, seed: int, keep: set[tuple[str, int, str]] | 
         elif n <= 0 or n >= len(pending):
             return len(pending)
         else:
-            by_module: dict[str, list] = defaultdict(list)
-            for item in pending:
-                by_module[str(item.mutations[0].module_path)].append(item)
             rng = random.Random(seed)
-            chosen = set()
-            for items in by_module.values():
-                share = max(1, round(n * len(items) / len(pending)))
-                chosen |= {i.job_id for i in rng.sample(items, min(share, len(items)))}
+            chosen = {i.job_id for i in rng.sample(pending, n)}
         skip = [item.job_id for item in pending if item.job_id not in chosen]
         db.set_multiple_results(skip, WorkResult(output="not sampled", worker_outcome=WorkerOutcome.SKIPPED))
         return len(chosen)
 
 
-def _report(session: Path, work: Path) -> dict:
+def _report(session: Path, work: Path, tests: list[str]) -> dict:
     from cosmic_ray.work_db import WorkDB, use_db
     from cosmic_ray.work_item import TestOutcome, WorkerOutcome
 
@@ -167,6 +179,7 @@ def _report(session: Path, work: Path) -> dict:
                             "occurrence": m.occurrence,
                             "source": lines[m.start_pos[0] - 1].strip(),
                             "job": item.job_id,
+                            "tests": tests,
                         }
                     )
             else:
@@ -181,11 +194,40 @@ def _report(session: Path, work: Path) -> dict:
     }
 
 
+def _count(session: Path) -> int:
+    from cosmic_ray.work_db import WorkDB, use_db
+
+    with use_db(str(session), WorkDB.Mode.open) as db:
+        return sum(1 for _ in db.pending_work_items)
+
+
+def _prepare(work: Path, modules: list[str], tests: list[str] | None, timeout: float) -> dict[str, tuple]:
+    """One cosmic-ray session per module, with its targeted tests: module -> (config, session, tests, count)."""
+    out = {}
+    for module in modules:
+        chosen = _tests_for(module, tests)
+        name = Path(module).stem
+        config = _write_config(work, name, [module], chosen, timeout)
+        session = work / f"{name}.sqlite"
+        subprocess.run(["cosmic-ray", "init", str(config), str(session)], cwd=work, check=True)
+        subprocess.run(["cr-filter-operators", str(session), str(config)], cwd=work, check=True)
+        out[module] = (config, session, chosen, _count(session))
+    return out
+
+
+def _shares(counts: dict[str, int], sample: int) -> dict[str, int]:
+    """Mutations to test per module: ``sample`` spread in proportion to each module's count (0: all)."""
+    total = sum(counts.values()) or 1
+    if sample <= 0:
+        return {m: c for m, c in counts.items() if c}
+    return {m: min(c, max(1, round(sample * c / total))) for m, c in counts.items() if c}
+
+
 def main(argv: list[str] | None = None) -> int:
     parser = argparse.ArgumentParser(description=__doc__.split("\n\n")[0])
     parser.add_argument("--modules", nargs="*", default=list(DEFAULT_PACKAGES), help="files or package folders")
-    parser.add_argument("--tests", nargs="*", default=list(DEFAULT_TESTS), help="test files to run per mutant")
-    parser.add_argument("--sample", type=int, default=200, help="mutations to test (0: all)")
+    parser.add_argument("--tests", nargs="*", help="test files to run per mutant (default: per module, MODULE_TESTS)")
+    parser.add_argument("--sample", type=int, default=160, help="mutations to test in all (0: all)")
     parser.add_argument("--seed", type=int, default=15)
     parser.add_argument("--minutes", type=float, default=35.0, help="wall-time budget of the run")
     parser.add_argument("--timeout", type=float, default=240.0, help="seconds per mutant before it counts as killed")
@@ -196,41 +238,59 @@ def main(argv: list[str] | None = None) -> int:
     if shutil.which("cosmic-ray") is None:
         print("cosmic-ray is not installed: pip install cosmic-ray", file=sys.stderr)
         return 2
-    keep = None
+    keep: set[tuple[str, int, str]] | None = None
     modules = _modules(args.modules)
     if args.recheck:
         old = json.loads(Path(args.recheck).read_text())
         keep = {(s["module"], s["line"], s["operator"]) for s in old["survivors"]}
         modules = sorted({s["module"] for s in old["survivors"]})
     work = _scratch_copy()
+    start = time.monotonic()
+    deadline = start + args.minutes * 60
+    total: dict[str, Any] = {"tested": 0, "killed": 0, "survived": 0, "survivors": [], "per_module": {}}
     try:
-        config = _write_config(work, modules, args.tests, args.timeout)
-        session = work / "session.sqlite"
-        base = subprocess.run(_test_command(args.tests).split(), cwd=work, capture_output=True, text=True)
-        if base.returncode != 0:
-            print("the unmutated test subset fails; fix it first:\n" + base.stdout[-2000:], file=sys.stderr)
-            return 1
-        subprocess.run(["cosmic-ray", "init", str(config), str(session)], cwd=work, check=True)
-        subprocess.run(["cr-filter-operators", str(session), str(config)], cwd=work, check=True)
-        count = _sample(session, args.sample, args.seed, keep)
-        print(f"{len(modules)} modules, {count} mutations to test, budget {args.minutes:g} min", flush=True)
-        start = time.monotonic()
-        proc = subprocess.Popen(["cosmic-ray", "exec", str(config), str(session)], cwd=work)
-        try:
-            proc.wait(timeout=args.minutes * 60)
-        except subprocess.TimeoutExpired:
-            proc.terminate()
-            proc.wait(timeout=60)
-            print("wall-time budget reached; reporting the mutations tested so far", flush=True)
-        report = _report(session, work)
-        report["minutes"] = round((time.monotonic() - start) / 60, 1)
-        report["modules"] = modules
-        Path(args.out).write_text(json.dumps(report, indent=2) + "\n")
+        prepared = _prepare(work, modules, args.tests, args.timeout)
+        shares = _shares({m: p[3] for m, p in prepared.items()}, 0 if keep is not None else args.sample)
+        planned = sum(shares.values())
+        print(f"{len(shares)} modules, {planned} mutations to test, budget {args.minutes:g} min", flush=True)
+        left = planned
+        for module, share in shares.items():
+            now = time.monotonic()
+            if now >= deadline:
+                print("wall-time budget reached", flush=True)
+                break
+            config, session, tests, _ = prepared[module]
+            _sample(session, share, args.seed, keep)
+            budget = (deadline - now) * share / max(left, 1)
+            left -= share
+            proc = subprocess.Popen(
+                ["cosmic-ray", "exec", str(config), str(session)],
+                cwd=work,
+                stdout=subprocess.DEVNULL,
+                stderr=subprocess.DEVNULL,
+            )
+            try:
+                proc.wait(timeout=budget)
+            except subprocess.TimeoutExpired:
+                proc.terminate()
+                proc.wait(timeout=60)
+            part = _report(session, work, tests)
+            for key in ("tested", "killed", "survived"):
+                total[key] += part[key]
+            total["survivors"] += part["survivors"]
+            total["per_module"][module] = {k: part[k] for k in ("tested", "killed", "survived")}
+            print(
+                f"  {module}: tested {part['tested']}, survived {part['survived']} ({len(tests)} test files)",
+                flush=True,
+            )
+        total["score"] = round(total["killed"] / total["tested"], 4) if total["tested"] else None
+        total["minutes"] = round((time.monotonic() - start) / 60, 1)
+        Path(args.out).write_text(json.dumps(total, indent=2) + "\n")
         print(
-            f"tested {report['tested']}, killed {report['killed']}, survived {report['survived']}, "
-            f"score {report['score']}, {report['minutes']} min"
+            f"tested {total['tested']}, killed {total['killed']}, survived {total['survived']}, "
+            f"score {total['score']}, {total['minutes']} min"
         )
-        for s in report["survivors"]:
+        for s in total["survivors"]:
             print(f"  {s['module']}:{s['line']}  {s['operator']}  | {s['source']}")
     finally:
         if args.keep:

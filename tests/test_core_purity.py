@@ -46,3 +46,35 @@ def test_ui_package_is_where_the_widget_libraries_come_in():
     result = _probe(["workbench.ui.app"])
     assert {"ipywidgets", "IPython"} <= set(result["ui"])
     assert "py3Dmol" not in result["ui"]  # the 3D viewer is our own inlined 3Dmol.js page, never a CDN loader
+
+
+def _guarded_own_imports(path: Path) -> list[int]:
+    """Lines where an import of our own package sits in a try whose handler catches ImportError."""
+    import ast
+
+    found = []
+    for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"))):
+        if not isinstance(node, ast.Try):
+            continue
+        own = any(
+            isinstance(stmt, ast.ImportFrom)
+            and (stmt.module or "").startswith("workbench")
+            or isinstance(stmt, ast.Import)
+            and any(a.name.startswith("workbench") for a in stmt.names)
+            for stmt in node.body
+        )
+        names = {n.id for h in node.handlers if h.type is not None for n in ast.walk(h.type) if isinstance(n, ast.Name)}
+        if own and names & {"ImportError", "ModuleNotFoundError", "Exception"}:
+            found.append(node.lineno)
+    return found
+
+
+def test_our_own_layers_are_imported_not_guarded():
+    # A broken layer must fail loudly: an ImportError around our own import turns an import bug into
+    # "no prediction, candidate kept" (common practice: optional guards only for optional third parties).
+    offenders = {
+        str(p.relative_to(ROOT)): lines
+        for p in sorted((ROOT / "workbench").rglob("*.py"))
+        if (lines := _guarded_own_imports(p))
+    }
+    assert offenders == {}

@@ -74,6 +74,17 @@ def test_malformed_json_names_line_and_column(tmp_path):
             },
             "Did you mean: D-glucose",
         ),
+        (
+            # a mirror-image relation pairs exactly two compounds [common practice]
+            {
+                "id": "E1",
+                "kind": "same_product",
+                "reaction": "aldaric_acid",
+                "members": ["G", "M", "A"],
+                "relation": "enantiomeric",
+            },
+            "observation E1, field 'members': an 'enantiomeric' relation needs exactly two members",
+        ),
         ({"kind": "series", "unknown": "G", "value": "D"}, "field 'id'"),
         ({"id": "E1", "kind": "series", "unknown": "G", "value": "D", "recorded": "last Tuesday"}, "ISO 8601"),
     ],
