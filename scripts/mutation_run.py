@@ -2,27 +2,27 @@
 
 Not part of CI (far too slow). Run by hand from the repository root, for example::
 
-    python scripts/mutation_run.py --sample 200 --minutes 35
+    python scripts/mutation_run.py --sample 160 --minutes 35
     python scripts/mutation_run.py --modules workbench/chem/reactions.py --sample 0
 
 What it does:
 
 1. copies ``workbench/``, ``tests/`` and ``pyproject.toml`` into a scratch folder, so that a run
    that is interrupted never leaves a mutated file in the working tree;
-2. writes one cosmic-ray configuration per module there and lets ``cosmic-ray init`` list every
-   mutation of the chosen modules (default: every module of ``workbench/chem`` and ``workbench/evidence``);
+2. writes a cosmic-ray configuration there and lets ``cosmic-ray init`` list every mutation of the
+   chosen modules (default: every module of ``workbench/chem`` and ``workbench/evidence``);
 3. skips the operators that only make noise (bit and shift operators, ``is`` comparisons, variable
    shuffling, removing a decorator such as ``@cache``) and, with ``--sample N``, keeps a seeded random
    sample of N mutations spread over the modules in proportion to their size;
 4. runs each mutation against a fast test subset targeted at its module (``MODULE_TESTS``,
-   ``pytest -x``), module after module, each module getting its share of ``--minutes`` of wall time;
+   ``pytest -x``; a small picker finds the mutated module), until done or ``--minutes`` have passed;
 5. prints the score (killed / tested) and every surviving mutation with its file, line, operator and
    the source line, and writes the same as JSON (``--out``).
 
 ``--recheck FILE`` re-runs only the survivors listed in an earlier JSON report (after new tests were
 written), so a triage can be confirmed without a full run.
 
-Requires ``cosmic-ray`` (in the ``test`` extra of pyproject.toml).
+Requires ``cosmic-ray`` (the ``mutation`` extra of pyproject.toml: ``pip install ".[mutation]"``).
 """
 
 from __future__ import annotations
@@ -95,24 +95,40 @@ def _modules(packages: list[str]) -> list[str]:
 
 def _scratch_copy() -> Path:
     work = Path(tempfile.mkdtemp(prefix="stereosieve-mutation-"))
-    shutil.copytree(ROOT / "workbench", work / "workbench", ignore=shutil.ignore_patterns("__pycache__"))
-    shutil.copytree(ROOT / "tests", work / "tests", ignore=shutil.ignore_patterns("__pycache__"))
+    for folder in ("workbench", "tests"):
+        shutil.copytree(ROOT / folder, work / folder, ignore=shutil.ignore_patterns("__pycache__"))
+    shutil.copytree(ROOT / "workbench", work / "pristine", ignore=shutil.ignore_patterns("__pycache__"))
     shutil.copy2(ROOT / "pyproject.toml", work / "pyproject.toml")
     return work
 
 
-def _tests_for(module: str, chosen: list[str] | None) -> list[str]:
+def _tests_for(stem: str, chosen: list[str] | None) -> list[str]:
     if chosen:
         return chosen
-    stem = Path(module).stem
     return [f"tests/{t}.py" for t in MODULE_TESTS.get(stem, FALLBACK_TESTS) if (ROOT / "tests" / f"{t}.py").exists()]
 
 
-def _test_command(tests: list[str]) -> str:
-    return f"{sys.executable} -m pytest -x -q -p no:cacheprovider --no-header " + " ".join(tests)
+# Run by cosmic-ray for each mutant: finds the one mutated module (it differs from the pristine
+# copy) and runs the tests targeted at that module, stopping at the first failure.
+_PICKER = """
+import subprocess, sys
+from pathlib import Path
+work = Path(__file__).resolve().parent
+targets = {targets!r}
+fallback = {fallback!r}
+changed = [p.stem for p in (work / "workbench").rglob("*.py")
+           if p.read_bytes() != (work / "pristine" / p.relative_to(work / "workbench")).read_bytes()]
+tests = targets.get(changed[0], fallback) if changed else fallback
+sys.exit(subprocess.call([sys.executable, "-m", "pytest", "-x", "-q", "-p", "no:cacheprovider", "--no-header", *tests],
+                         cwd=work, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL))
+"""
 
 
-def _write_config(work: Path, name: str, modules: list[str], tests: list[str], timeout: float) -> Path:
+def _write_config(work: Path, modules: list[str], tests: list[str] | None, timeout: float) -> Path:
+    stems = {Path(m).stem for m in modules}
+    targets = {stem: _tests_for(stem, tests) for stem in stems}
+    picker = work / "pick_tests.py"
+    picker.write_text(_PICKER.format(targets=targets, fallback=_tests_for("", tests)))
     mods = ", ".join(json.dumps(m) for m in modules)
     excluded = ", ".join(json.dumps(e) for e in EXCLUDED_OPERATORS)
     text = (
@@ -120,11 +136,11 @@ def _write_config(work: Path, name: str, modules: list[str], tests: list[str], t
         f"module-path = [{mods}]\n"
         f"timeout = {timeout}\n"
         "excluded-modules = []\n"
-        f"test-command = {json.dumps(_test_command(tests))}\n"
+        f"test-command = {json.dumps(f'{sys.executable} {picker}')}\n"
         '\n[cosmic-ray.distributor]\nname = "local"\n'
         f"\n[cosmic-ray.filters.operators-filter]\nexclude-operators = [{excluded}]\n"
     )
-    config = work / f"{name}.toml"
+    config = work / "mutation.toml"
     config.write_text(text)
     return config
 
@@ -147,89 +163,56 @@ def _sample(session: Path, n: int, seed: int, keep: set[tuple[str, int, str]] | 
             return len(pending)
         else:
             rng = random.Random(seed)
-            chosen = {i.job_id for i in rng.sample(pending, n)}
+            chosen = {i.job_id for i in rng.sample(pending, n)}  # spread over the modules by their size
         skip = [item.job_id for item in pending if item.job_id not in chosen]
         db.set_multiple_results(skip, WorkResult(output="not sampled", worker_outcome=WorkerOutcome.SKIPPED))
         return len(chosen)
 
 
-def _report(session: Path, work: Path, tests: list[str]) -> dict:
+def _report(session: Path, work: Path, tests: list[str] | None) -> dict[str, Any]:
     from cosmic_ray.work_db import WorkDB, use_db
     from cosmic_ray.work_item import TestOutcome, WorkerOutcome
 
-    killed = survived = incompetent = 0
-    survivors = []
+    out: dict[str, Any] = {"tested": 0, "killed": 0, "survived": 0, "survivors": [], "per_module": {}}
     with use_db(str(session), WorkDB.Mode.open) as db:
         for item, result in db.completed_work_items:
             if result.worker_outcome == WorkerOutcome.SKIPPED:
                 continue
-            if result.worker_outcome != WorkerOutcome.NORMAL:
-                incompetent += 1  # the mutant broke the import or timed out: counted as killed below
-                continue
-            if result.test_outcome == TestOutcome.SURVIVED:
-                survived += 1
-                for m in item.mutations:
-                    path = str(m.module_path)
-                    lines = (work / path).read_text().splitlines()
-                    survivors.append(
-                        {
-                            "module": path,
-                            "line": m.start_pos[0],
-                            "operator": m.operator_name,
-                            "occurrence": m.occurrence,
-                            "source": lines[m.start_pos[0] - 1].strip(),
-                            "job": item.job_id,
-                            "tests": tests,
-                        }
-                    )
+            m = item.mutations[0]
+            path = str(m.module_path)
+            row = out["per_module"].setdefault(path, {"tested": 0, "killed": 0, "survived": 0})
+            out["tested"] += 1
+            row["tested"] += 1
+            # an abnormal worker outcome (the mutant broke the import, or timed out) counts as killed
+            if result.worker_outcome == WorkerOutcome.NORMAL and result.test_outcome == TestOutcome.SURVIVED:
+                out["survived"] += 1
+                row["survived"] += 1
+                lines = (work / path).read_text().splitlines()
+                out["survivors"].append(
+                    {
+                        "module": path,
+                        "line": m.start_pos[0],
+                        "operator": m.operator_name,
+                        "occurrence": m.occurrence,
+                        "source": lines[m.start_pos[0] - 1].strip(),
+                        "tests": _tests_for(Path(path).stem, tests),
+                    }
+                )
             else:
-                killed += 1
-    tested = killed + survived + incompetent
-    return {
-        "tested": tested,
-        "killed": killed + incompetent,
-        "survived": survived,
-        "score": round((killed + incompetent) / tested, 4) if tested else None,
-        "survivors": sorted(survivors, key=lambda s: (s["module"], s["line"])),
-    }
-
-
-def _count(session: Path) -> int:
-    from cosmic_ray.work_db import WorkDB, use_db
-
-    with use_db(str(session), WorkDB.Mode.open) as db:
-        return sum(1 for _ in db.pending_work_items)
-
-
-def _prepare(work: Path, modules: list[str], tests: list[str] | None, timeout: float) -> dict[str, tuple]:
-    """One cosmic-ray session per module, with its targeted tests: module -> (config, session, tests, count)."""
-    out = {}
-    for module in modules:
-        chosen = _tests_for(module, tests)
-        name = Path(module).stem
-        config = _write_config(work, name, [module], chosen, timeout)
-        session = work / f"{name}.sqlite"
-        subprocess.run(["cosmic-ray", "init", str(config), str(session)], cwd=work, check=True)
-        subprocess.run(["cr-filter-operators", str(session), str(config)], cwd=work, check=True)
-        out[module] = (config, session, chosen, _count(session))
+                out["killed"] += 1
+                row["killed"] += 1
+    out["score"] = round(out["killed"] / out["tested"], 4) if out["tested"] else None
+    out["survivors"].sort(key=lambda x: (x["module"], x["line"]))
     return out
-
-
-def _shares(counts: dict[str, int], sample: int) -> dict[str, int]:
-    """Mutations to test per module: ``sample`` spread in proportion to each module's count (0: all)."""
-    total = sum(counts.values()) or 1
-    if sample <= 0:
-        return {m: c for m, c in counts.items() if c}
-    return {m: min(c, max(1, round(sample * c / total))) for m, c in counts.items() if c}
 
 
 def main(argv: list[str] | None = None) -> int:
     parser = argparse.ArgumentParser(description=__doc__.split("\n\n")[0])
     parser.add_argument("--modules", nargs="*", default=list(DEFAULT_PACKAGES), help="files or package folders")
     parser.add_argument("--tests", nargs="*", help="test files to run per mutant (default: per module, MODULE_TESTS)")
-    parser.add_argument("--sample", type=int, default=160, help="mutations to test in all (0: all)")
+    parser.add_argument("--sample", type=int, default=160, help="mutations to test (0: all)")
     parser.add_argument("--seed", type=int, default=15)
-    parser.add_argument("--minutes", type=float, default=35.0, help="wall-time budget of the run")
+    parser.add_argument("--minutes", type=float, default=35.0, help="wall-time budget of the mutant runs")
     parser.add_argument("--timeout", type=float, default=240.0, help="seconds per mutant before it counts as killed")
     parser.add_argument("--out", default="mutation_report.json")
     parser.add_argument("--recheck", help="JSON report whose survivors are run again")
@@ -245,53 +228,38 @@ def main(argv: list[str] | None = None) -> int:
         keep = {(s["module"], s["line"], s["operator"]) for s in old["survivors"]}
         modules = sorted({s["module"] for s in old["survivors"]})
     work = _scratch_copy()
-    start = time.monotonic()
-    deadline = start + args.minutes * 60
-    total: dict[str, Any] = {"tested": 0, "killed": 0, "survived": 0, "survivors": [], "per_module": {}}
     try:
-        prepared = _prepare(work, modules, args.tests, args.timeout)
-        shares = _shares({m: p[3] for m, p in prepared.items()}, 0 if keep is not None else args.sample)
-        planned = sum(shares.values())
-        print(f"{len(shares)} modules, {planned} mutations to test, budget {args.minutes:g} min", flush=True)
-        left = planned
-        for module, share in shares.items():
-            now = time.monotonic()
-            if now >= deadline:
-                print("wall-time budget reached", flush=True)
-                break
-            config, session, tests, _ = prepared[module]
-            _sample(session, share, args.seed, keep)
-            budget = (deadline - now) * share / max(left, 1)
-            left -= share
-            proc = subprocess.Popen(
-                ["cosmic-ray", "exec", str(config), str(session)],
-                cwd=work,
-                stdout=subprocess.DEVNULL,
-                stderr=subprocess.DEVNULL,
-            )
-            try:
-                proc.wait(timeout=budget)
-            except subprocess.TimeoutExpired:
-                proc.terminate()
-                proc.wait(timeout=60)
-            part = _report(session, work, tests)
-            for key in ("tested", "killed", "survived"):
-                total[key] += part[key]
-            total["survivors"] += part["survivors"]
-            total["per_module"][module] = {k: part[k] for k in ("tested", "killed", "survived")}
-            print(
-                f"  {module}: tested {part['tested']}, survived {part['survived']} ({len(tests)} test files)",
-                flush=True,
-            )
-        total["score"] = round(total["killed"] / total["tested"], 4) if total["tested"] else None
-        total["minutes"] = round((time.monotonic() - start) / 60, 1)
-        Path(args.out).write_text(json.dumps(total, indent=2) + "\n")
-        print(
-            f"tested {total['tested']}, killed {total['killed']}, survived {total['survived']}, "
-            f"score {total['score']}, {total['minutes']} min"
+        config = _write_config(work, modules, args.tests, args.timeout)
+        session = work / "session.sqlite"
+        subprocess.run(["cosmic-ray", "init", str(config), str(session)], cwd=work, check=True)
+        subprocess.run(["cr-filter-operators", str(session), str(config)], cwd=work, check=True)
+        count = _sample(session, args.sample, args.seed, keep)
+        print(f"{len(modules)} modules, {count} mutations to test, budget {args.minutes:g} min", flush=True)
+        start = time.monotonic()
+        proc = subprocess.Popen(
+            ["cosmic-ray", "exec", str(config), str(session)],
+            cwd=work,
+            stdout=subprocess.DEVNULL,
+            stderr=subprocess.DEVNULL,
         )
-        for s in total["survivors"]:
-            print(f"  {s['module']}:{s['line']}  {s['operator']}  | {s['source']}")
+        try:
+            proc.wait(timeout=args.minutes * 60)
+        except subprocess.TimeoutExpired:
+            proc.terminate()
+            proc.wait(timeout=60)
+            print("wall-time budget reached; reporting the mutations tested so far", flush=True)
+        report = _report(session, work, args.tests)
+        report["minutes"] = round((time.monotonic() - start) / 60, 1)
+        report["planned"] = count
+        Path(args.out).write_text(json.dumps(report, indent=2) + "\n")
+        print(
+            f"tested {report['tested']} of {count}, killed {report['killed']}, survived {report['survived']}, "
+            f"score {report['score']}, {report['minutes']} min"
+        )
+        for module, row in sorted(report["per_module"].items()):
+            print(f"  {module:<40} tested {row['tested']:>3}  survived {row['survived']:>3}")
+        for x in report["survivors"]:
+            print(f"  SURVIVED {x['module']}:{x['line']}  {x['operator']}  | {x['source']}")
     finally:
         if args.keep:
             print(f"scratch folder kept: {work}")
