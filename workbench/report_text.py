@@ -32,10 +32,12 @@ def identity_json(chain: Chain) -> dict:
 def predict_json(chain: Chain) -> dict:
     """The ``predictions`` block of ``predict --json`` (keys in DESIGN.md)."""
     from workbench.chem.predictions import predictions_json
+    from workbench.conformers.calibration import quantities_json
     from workbench.conformers.summary import physical_json
 
     data = predictions_json(chain)
     data.update(physical_json(chain))
+    data["quantities"] = quantities_json(chain)  # Contract 3: value, standard error, class, flags
     return data
 
 
@@ -53,6 +55,7 @@ def predict_text(chain: Chain) -> str:
     for key in _TEXT_KEYS:
         if key in data:
             lines.append(f"  {key}: {_short(data[key])}")
+    lines += _quantity_lines(data.get("quantities") or {})
     return "\n".join(lines)
 
 
@@ -71,6 +74,27 @@ def compound_text(data: dict) -> str:
             why = predictions["not_applicable"].get(key)
             lines.append(f"  {key}: {_short(predictions[key])}" + (f" ({why})" if why else ""))
     return "\n".join(lines)
+
+
+def _estimate_text(est: dict, unit: str = "") -> str:
+    if est.get("sign_only"):
+        return f"sign only ({est['flags'][0] if est['flags'] else ''})"
+    se = "uncalibrated" if est["se"] is None else f"+/- {est['se']:g}{unit}"
+    flags = f"; {'; '.join(est['flags'])}" if est["flags"] else ""
+    return f"{est['value']:g}{unit} {se} (class {est['class']}{flags})"
+
+
+def _quantity_lines(q: dict) -> list[str]:
+    """Calibrated quantities with their standard errors (Contract 3)."""
+    lines: list[str] = []
+    if q.get("alpha_share"):
+        lines.append(f"  alpha share of the pyranoses: {_estimate_text(q['alpha_share'])}")
+    if q.get("specific_rotation"):
+        lines.append(f"  equilibrium [alpha]D: {_estimate_text(q['specific_rotation'], ' deg')}")
+    for form, pairs in (q.get("couplings") or {}).items():
+        for pair, est in pairs.items():
+            lines.append(f"  3J({pair}) {form}: {_estimate_text(est, ' Hz')}")
+    return lines
 
 
 # The keys of DESIGN.md's predict table, in the order a chemist reads them.

@@ -62,6 +62,7 @@ __all__ = [
     "coupling_class",
     "coupling_estimate",
     "model_value",
+    "quantities_json",
     "rotation_estimate",
     "sugar_class",
 ]
@@ -342,7 +343,7 @@ def _estimate(chain: Chain, quantity: str, model: float, clip: bool) -> Estimate
         value = min(1.0, max(0.0, value))
     flags: list[str] = []
     if cls == "ketose":
-        flags.append(f"ketose: the pyranose scheme is calibrated on {entry.n} ketoses only, with a wide error")
+        flags.append(f"ketose: calibrated on {entry.n} ketose value(s) only, with a wide error")
     if entry.n < 3:
         flags.append(f"calibrated on {entry.n} published value(s) only")
     if borrowed:
@@ -412,3 +413,24 @@ def rotation_estimate(chain: Chain) -> Estimate | None:
         return None
     flag = "only the sign of [alpha]D is published (some signs are disputed): weak evidence, removes nothing"
     return Estimate("rotation", 0.0, None, "sign_only", 0.0, 0, (flag,), sign=sign)
+
+
+def quantities_json(chain: Chain) -> dict:
+    """Every calibrated quantity of ``chain`` for ``predict --json``: value, se, class, flags.
+
+    ``alpha_share`` (alpha / (alpha + beta) pyranose, None where no value is
+    given), ``specific_rotation`` (deg mL g-1 dm-1; sign-only or None where
+    nothing is published) and ``couplings`` per pyranose form and proton pair
+    (Hz). Periodate counts are stoichiometric and carry no model error.
+    """
+    alpha = alpha_share_estimate(chain)
+    rotation = rotation_estimate(chain)
+    return {
+        "alpha_share": alpha.to_dict() if alpha else None,
+        "specific_rotation": rotation.to_dict(1) if rotation else None,
+        "couplings": {
+            form: {pair: est.to_dict(1) for pair in pairs if (est := coupling_estimate(chain, form, pair))}
+            for form, pairs in ring_couplings(chain).items()
+        },
+        "periodate": {"se": 0.0, "note": "stoichiometric counts: only the measurement's own sigma applies"},
+    }
