@@ -13,6 +13,21 @@ outcomes (periodate amounts, rotations, couplings) are grouped by what the
 instrument can tell apart: values closer than the observation's default
 tolerance fall in one group (single linkage along the sorted values).
 
+Under uncertainty (Contract 3) the units are weighed by the posterior of
+the solution (:attr:`Solution.probabilities`; joint worlds by the product of
+their candidates' weights), so the information of a logic experiment is the
+entropy of its outcome distribution under the posterior. A measured quantity
+(rotation, anomer ratio, coupling) is scored by the mutual information
+between the candidate and the noisy reading: each candidate predicts a
+Gaussian reading with the combined error ``sqrt(sigma^2 + se^2)`` (the kind's
+default sigma and the prediction's standard error), an uncalibrated one a
+flat reading, a ring form it cannot close a reading of its own, and
+
+    I = sum_c p_c integral f_c(y) log2(f_c(y) / sum_c' p_c' f_c'(y)) dy   [bits]
+
+is summed on a grid. Its expected number of survivors afterwards is
+``2 ** (H - I)`` (H the entropy of the candidates' probabilities).
+
 Ranking: information per unit of effort (see :mod:`workbench.evidence.costs`),
 or by information alone. A two-step look-ahead scores pairs of experiments by
 the entropy of their joint partition.
@@ -20,6 +35,7 @@ the entropy of their joint partition.
 
 from __future__ import annotations
 
+import dataclasses
 import itertools
 import math
 from collections import defaultdict
@@ -37,7 +53,8 @@ from workbench.chem.parse import resolve
 from workbench.evidence import tables
 from workbench.evidence.costs import Cost, cautions_of, cost_of
 from workbench.evidence.engine import Solution, joint_worlds, solve
-from workbench.evidence.outcomes import NO_PREDICTION, outcome_label, product_key
+from workbench.evidence.observations import DEFAULT_SIGMA, OBSERVATION_TYPES
+from workbench.evidence.outcomes import FLAT_DENSITY, NO_PREDICTION, estimate, outcome_label, product_key
 from workbench.evidence.project import Project
 from workbench.evidence.residue_outcomes import residue_experiments
 from workbench.evidence.tables import column_key
@@ -169,7 +186,78 @@ def entropy_bits(sizes: Sequence[int]) -> float:
     return -sum((n / total) * math.log2(n / total) for n in sizes if n)
 
 
-def _expected_remaining(sizes: Sequence[int]) -> float:
+def _entropy_of(weights: Sequence[float]) -> float:
+    """Shannon entropy (bits) of outcome weights (normalised here)."""
+    total = sum(weights)
+    if total <= 0:
+        return 0.0
+    return max(0.0, -sum((w / total) * math.log2(w / total) for w in weights if w > 0))
+
+
+# Reading ranges for the information of a measured quantity (the flat density's range, FLAT_DENSITY).
+_GRID = {
+    "anomer_ratio": (0.0, 1.0, 401),
+    "coupling_constant": (0.0, 12.0, 481),
+    "specific_rotation": (-150.0, 150.0, 601),
+}
+
+
+def _noisy_information(
+    kind: str, params: dict, survivors: Sequence[Chain], probs: Sequence[float]
+) -> tuple[float, float]:
+    """Mutual information (bits) between candidate and noisy reading, and 2**(H - I) (see module docstring)."""
+    probe: Any = OBSERVATION_TYPES[kind]("?", **params)
+    lo, hi, points = _GRID[kind]
+    grid = np.linspace(lo, hi, points)
+    step = grid[1] - grid[0]
+    sigma = DEFAULT_SIGMA[kind]
+    flat = np.full_like(grid, FLAT_DENSITY[kind])
+    densities: dict[tuple, np.ndarray] = {}
+    mass: dict[tuple, float] = defaultdict(float)
+    impossible = 0.0
+    for chain, p in zip(survivors, probs, strict=True):
+        if p <= 0:
+            continue
+        found = estimate(probe, chain)
+        if found is None:
+            impossible += p
+            continue
+        if found is NO_PREDICTION or (found.se is None and not found.sign):
+            key: tuple = ("flat",)
+        elif found.sign:
+            key = ("sign", found.sign)
+        else:
+            key = ("gauss", round(found.value, 4), round(math.sqrt(sigma**2 + found.se**2), 4))
+        if key not in densities:
+            if key[0] == "flat":
+                densities[key] = flat
+            elif key[0] == "sign":
+                densities[key] = flat * np.where(grid * key[1] > 0, 1.6, 0.4)
+            else:
+                mu, s = key[1], key[2]
+                densities[key] = np.exp(-0.5 * ((grid - mu) / s) ** 2) / (s * math.sqrt(2 * math.pi))
+        mass[key] += p
+    total = impossible + sum(mass.values())
+    if total <= 0:
+        return 0.0, 0.0
+    info = 0.0
+    if impossible > 0:
+        info += (impossible / total) * math.log2(total / impossible)
+    if mass:
+        keys = list(mass)
+        dens = np.array([densities[k] for k in keys])
+        weights = np.array([mass[k] / total for k in keys])
+        mix = weights @ dens
+        with np.errstate(divide="ignore", invalid="ignore"):
+            ratio = np.where(dens > 0, np.log2(np.maximum(dens, 1e-300) / np.maximum(mix, 1e-300)), 0.0)
+        per_key = (dens * ratio).sum(axis=1) * step
+        info += float(weights @ per_key)
+    prior = _entropy_of(list(probs))
+    info = min(max(info, 0.0), prior)
+    return info, 2 ** (prior - info)
+
+
+def _expected_remaining(sizes: Sequence[float]) -> float:
     total = sum(sizes)
     return sum(n * n for n in sizes) / total if total else 0.0
 
@@ -317,18 +405,20 @@ def _score(
     uid: str,
     labels: list[Hashable],
     names: list[str],
+    unit_weights: Sequence[float] | None = None,
 ) -> Experiment:
     """Score one experiment over its units (joint worlds, or the unknown's survivors).
 
     ``labels[i]`` is the predicted outcome in unit i and ``names[i]`` what the
-    user sees for that unit (a survivor name, or ``U1=..., U2=...``). The
+    user sees for that unit (a survivor name, or ``U1=..., U2=...``);
+    ``unit_weights[i]`` its posterior weight (uniform when None). The
     information is the entropy of the outcome weights; the expected number of
     survivors afterwards is the weighted mean of distinct names per outcome.
     """
-    weights: dict[str, int] = defaultdict(int)
+    weights: dict[str, float] = defaultdict(float)
     groups: dict[str, dict[str, None]] = defaultdict(dict)
-    for label, name in zip(labels, names, strict=True):
-        weights[str(label)] += 1
+    for i, (label, name) in enumerate(zip(labels, names, strict=True)):
+        weights[str(label)] += 1.0 if unit_weights is None else unit_weights[i]
         groups[str(label)][name] = None
     total = sum(weights.values())
     cost = cost_of(kind, fields.get("reaction"))
@@ -336,7 +426,7 @@ def _score(
         kind=kind,
         fields=fields,
         unknown=uid,
-        information_bits=entropy_bits(list(weights.values())),
+        information_bits=_entropy_of(list(weights.values())),
         expected_remaining=sum(weights[k] / total * len(groups[k]) for k in weights) if total else 0.0,
         outcomes={k: tuple(v) for k, v in sorted(groups.items())},
         cost=cost,
@@ -360,6 +450,20 @@ def _pair_experiments(uid: str, others: Sequence[str], worlds: list[dict[str, Ch
             fields = {"reaction": reaction, "members": [uid, other]}
             title = f"compare the {reaction.replace('_', ' ')} of {uid} with that of {other}"
             yield "same_product", fields, title, labels, names
+
+
+def _world_weights(solution: Solution, worlds: list[dict[str, Chain]]) -> list[float] | None:
+    """Posterior weight of each joint world: the product of its candidates' unary weights, normalised."""
+    if not solution.weights:
+        return None
+    out = []
+    for w in worlds:
+        x = 1.0
+        for u, c in w.items():
+            x *= solution.weights.get(u, {}).get(c, 1.0)
+        out.append(x)
+    total = sum(out)
+    return [x / total for x in out] if total > 0 else None
 
 
 def _advice_for_conflicts(solution: Solution) -> list[str]:
@@ -410,8 +514,16 @@ def plan(
     labels_of: dict[int, tuple[str, list[Hashable]]] = {}
     done_pairs: set[frozenset[str]] = set()
 
+    unit_weights: dict[str, list[float] | None] = {}
+
     def add(kind: str, fields: dict, title: str, uid: str, labels: list[Hashable], names: list[str], unit: str) -> None:
-        exp = _score(kind, fields, title, uid, labels, names)
+        exp = _score(kind, fields, title, uid, labels, names, unit_weights.get(unit))
+        if kind in _GRID and not project.unknown(uid).is_residue:
+            survivors = sol.survivors[uid]
+            probs = [sol.probability(uid, c) for c in survivors] if sol.probabilities else [1.0] * len(survivors)
+            params = {k: v for k, v in fields.items()}
+            bits, left = _noisy_information(kind, params, survivors, probs)
+            exp = dataclasses.replace(exp, information_bits=bits, expected_remaining=left)
         if exp.information_bits > 1e-9:
             experiments.append(exp)
             labels_of[id(exp)] = (unit, labels)
@@ -427,8 +539,11 @@ def plan(
             rows = [row_of[w[uid]] for w in mine]
             names = tables.values("derived|display_name", survivors)
             unit_names = [names[i] for i in rows]
+            unit_weights[f"worlds:{uid}"] = _world_weights(sol, mine)
         else:
             unit_names = tables.values("derived|display_name", survivors)
+            if sol.probabilities.get(uid):
+                unit_weights[uid] = [sol.probability(uid, c) for c in survivors]
         for kind, fields, title, fn in _experiments_for(uid, survivors, ()):
             per_survivor = fn(survivors)
             if mine:
@@ -455,11 +570,12 @@ def plan(
             unit_b, lb = labels_of[id(b)]
             if unit_a != unit_b:
                 continue
-            joint: dict[tuple, int] = defaultdict(int)
-            for x, y in zip(la, lb, strict=True):
-                joint[(x, y)] += 1
+            joint: dict[tuple, float] = defaultdict(float)
+            uw = unit_weights.get(unit_a)
+            for i, (x, y) in enumerate(zip(la, lb, strict=True)):
+                joint[(x, y)] += 1.0 if uw is None else uw[i] * len(la)
             sizes = list(joint.values())
-            pairs.append(ExperimentPair(a, b, entropy_bits(sizes), _expected_remaining(sizes)))
+            pairs.append(ExperimentPair(a, b, _entropy_of(sizes), _expected_remaining(sizes)))
         pairs.sort(key=lambda p: (-p.information_bits, p.first.cost.effort + p.second.cost.effort))
         pairs = pairs[:10]
     advice: list[str] = []
