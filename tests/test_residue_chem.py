@@ -281,3 +281,19 @@ def test_both_anomers_give_one_alditol_acetate(linked):
     alpha = alditol_acetate(R("D-galactose", "pyranose", "alpha", *linked))
     beta = _alditol_acetate(R("D-galactose", "pyranose", "beta", *linked), "NaBD4")
     assert (alpha.methyl, alpha.acetyl, alpha.smiles) == (beta.methyl, beta.acetyl, beta.smiles)
+
+
+def test_n_acetylglucosamine_residues():
+    # permethylation N-methylates the acetamido group: 2-deoxy-2-(N-methylacetamido) alditol acetates
+    # (Björndal et al. 1970 style names [from memory]); terminal GlcNAcp consumes 1 IO4- (C-3/C-4) and gives
+    # no formic acid, a 4-linked GlcNAcp (chitin) resists periodate [common practice, from memory]
+    glcnac = "N-acetyl-D-glucosamine"
+    terminal = R(glcnac, "pyranose", "beta")
+    assert alditol_acetate(terminal).name == (
+        "1,5-di-O-acetyl-2-deoxy-3,4,6-tri-O-methyl-2-(N-methylacetamido)-D-glucitol-1-d"
+    )
+    assert residue_periodate(terminal).as_tuple() == (1, 0, 0)
+    four = R(glcnac, "pyranose", "beta", 4)
+    assert alditol_acetate(four).acetyl == (1, 4, 5) and alditol_acetate(four).methyl == (3, 6)
+    assert residue_periodate(four).as_tuple() == (0, 0, 0)
+    assert four.name == "->4)-beta-D-GlcNAcp-(1->"  # IUPAC symbol GlcNAc (2-Carb-38)

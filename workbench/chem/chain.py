@@ -41,6 +41,7 @@ def register_svg_renderer(renderer: Callable[[Chain], str] | None) -> None:
     global _svg_renderer
     _svg_renderer = renderer
 
+
 RIGHT = "right"
 LEFT = "left"
 

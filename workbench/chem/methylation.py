@@ -15,6 +15,9 @@ to the residue's RDKit structure (:func:`workbench.chem.residue.residue_mol`):
    C(D)(OH) of either configuration (2-ketoses: two C-2 epimeric alditols);
 5. acetylation: every hydroxyl now free becomes OAc.
 
+An acetamido group (GlcNAc) is N-methylated in step 2 and named
+``2-deoxy-2-(N-methylacetamido)``.
+
 Hence O-acetyl at the anomeric carbon, at the ring oxygen's carbon and at
 every linked position; O-methyl elsewhere (common practice, REFERENCE_VALUES.md).
 The deuterium at the anomeric carbon tells the two ends of a symmetric
@@ -143,7 +146,25 @@ def _reduce_carboxyl(rw: Chem.RWMol) -> Chem.RWMol:
     return _sanitised(rw)
 
 
+def _amide_nh(mol: Chem.Mol) -> list[int]:
+    """Nitrogens of secondary amides (the NHAc of an N-acetyl sugar)."""
+    out = []
+    for atom in mol.GetAtoms():
+        if atom.GetAtomicNum() != 7 or atom.GetTotalNumHs() != 1:
+            continue
+        for nb in atom.GetNeighbors():
+            if any(b.GetBondType() == Chem.BondType.DOUBLE for b in nb.GetBonds()) and nb.GetAtomicNum() == 6:
+                out.append(atom.GetIdx())
+                break
+    return out
+
+
 def _alkylate(rw: Chem.RWMol, acyl: bool) -> Chem.RWMol:
+    if not acyl:  # permethylation also N-methylates an acetamido group
+        for n in _amide_nh(rw):
+            c = rw.AddAtom(Chem.Atom(6))
+            rw.AddBond(n, c, Chem.BondType.SINGLE)
+            _reset(rw.GetAtomWithIdx(n))
     for o in _free_hydroxyls(rw):
         c = rw.AddAtom(Chem.Atom(6))
         rw.AddBond(o, c, Chem.BondType.SINGLE)
@@ -234,7 +255,8 @@ def _parent(chain: Chain, sides: list[str]) -> str:
 
 def pmaa_name(chain: Chain, sides: list[str], methyl, acetyl, deuterium: dict[int, int]) -> str:
     """Systematic name of a partially methylated alditol acetate (residue numbering)."""
-    deoxy = tuple(sorted(chain.deoxy_positions))
+    acetamido = tuple(sorted(chain.acetamido_positions))
+    deoxy = tuple(sorted(set(chain.deoxy_positions) | set(acetamido)))
     parts = []
     if acetyl:
         parts.append(_prefix(tuple(acetyl), "O-acetyl"))
@@ -242,6 +264,9 @@ def pmaa_name(chain: Chain, sides: list[str], methyl, acetyl, deuterium: dict[in
         parts.append(_prefix(deoxy, "deoxy"))
     if methyl:
         parts.append(_prefix(tuple(methyl), "O-methyl"))
+    if acetamido:  # N-methylated by permethylation (alphabetically after O-methyl)
+        mult = _MULT[len(acetamido)]
+        parts.append(f"{_locants(acetamido)}-{mult + '-' if mult else ''}(N-methylacetamido)")
     name = "-".join(parts + [_parent(chain, sides)])
     if deuterium:
         where = [k for k in sorted(deuterium) for _ in range(deuterium[k])]

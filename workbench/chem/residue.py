@@ -216,14 +216,21 @@ class Residue:
 
 # ------------------------------------------------------------------ structure
 def _backbone(mol: Chem.Mol) -> list[int]:
-    """Chain carbons in written order (C-1 first): carbons other than O-methyl carbons."""
+    """Chain carbons in written order (C-1 first): not O-methyl carbons nor the acetyl of NHAc."""
+    amide = {
+        a.GetIdx()
+        for a in mol.GetAtoms()
+        if a.GetAtomicNum() == 6
+        and any(n.GetAtomicNum() == 7 for n in a.GetNeighbors())
+        and any(b.GetBondType() == Chem.BondType.DOUBLE for b in a.GetBonds())
+    }  # the C=O of an acetamido group
     out = []
     for atom in mol.GetAtoms():
-        if atom.GetAtomicNum() != 6:
+        if atom.GetAtomicNum() != 6 or atom.GetIdx() in amide:
             continue
         nbrs = atom.GetNeighbors()
-        if len(nbrs) == 1 and nbrs[0].GetAtomicNum() == 8:
-            continue  # the methyl of OMe
+        if len(nbrs) == 1 and (nbrs[0].GetAtomicNum() == 8 or nbrs[0].GetIdx() in amide):
+            continue  # the methyl of OMe or of an acetyl
         out.append(atom.GetIdx())
     return out
 
@@ -321,10 +328,10 @@ class ResidueScope(Scope):
         if isinstance(m, bool) or not isinstance(m, int) or not 0 <= m <= 4:
             raise ScopeError(f"scope 'max_linked': {m!r} is not a whole number from 0 to 4")
         for chain in catalogue(self.sugar_scope):
-            if chain.amino_positions or chain.methoxy_positions or "CHNHAc" in chain.groups:
+            if chain.amino_positions or chain.methoxy_positions:
                 raise ScopeError(
-                    f"scope: {display_name(chain)} cannot be a residue here; amino and O-methyl sugars "
-                    "are not modelled as glycan residues (their methylation products differ)"
+                    f"scope: {display_name(chain)} cannot be a residue here; free amino and O-methyl sugars "
+                    "are not modelled as glycan residues (N-acetyl sugars such as GlcNAc are)"
                 )
 
     @property

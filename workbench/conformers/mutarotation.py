@@ -158,7 +158,9 @@ def _grid_start(t: np.ndarray, r: np.ndarray) -> tuple[float, float, float]:
     return best[1], best[2], best[3]
 
 
-def _check_quality(t: np.ndarray, initial: float, equilibrium: float, k: float, rmse: float, k_error: float | None) -> None:
+def _check_quality(
+    t: np.ndarray, initial: float, equilibrium: float, k: float, rmse: float, k_error: float | None
+) -> None:
     """Refuse a fit that does not describe a first-order relaxation (FitError says which criterion failed).
 
     Criteria: (1) the relaxation must be resolved by the sampling: k times the
