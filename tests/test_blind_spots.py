@@ -306,3 +306,22 @@ def test_three_observations_on_one_pair_of_unknowns():
     assert names([aldaric, differ]) == alt_tal
     assert len(names([osazone, aldaric])) == 8
     assert solve(_project(unknowns, [osazone, aldaric, differ])).contradictory
+
+
+# --------------------------------------------------- a named deoxy alditol stands for itself
+@pytest.mark.parametrize(("alditol", "sugar"), [("L-rhamnitol", "L-rhamnose"), ("L-fucitol", "L-fucose")])
+def test_named_deoxy_alditol_compares_with_the_reduced_sugar(alditol, sugar):
+    # Borohydride reduces L-rhamnose (6-deoxy-L-mannose) to L-rhamnitol and L-fucose to L-fucitol
+    # [common practice]; an alditol is not reduced further, so a named deoxy alditol is its own
+    # "alditol". Found by the mutation run (chain.is_alditol, USub -> Not): before, the comparison
+    # with L-rhamnitol was reported as a contradiction.
+    scope = {"carbons": [6], "carbonyl": ["aldose"], "series": ["L"], "modifications": ["deoxy:6"]}
+    obs = {
+        "id": "S1",
+        "kind": "same_product",
+        "reaction": "alditol",
+        "relation": "identical",
+        "members": ["X", alditol],
+    }
+    sol = solve(_project([{"id": "X", "scope": scope}], [obs]))
+    assert list(sol.survivors["X"]) == [resolve(sugar)]

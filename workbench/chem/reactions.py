@@ -273,13 +273,20 @@ def aldaric_acid(chain: Chain) -> Chain | NotApplicable | Uncertain:
     return out.replace(chain.carbons, "COOH")
 
 
+def _is_reduced(chain: Chain) -> bool:
+    """No group that borohydride reduces or that marks a product of another reaction (a polyol)."""
+    return chain.carbonyl is None and not set(chain.groups) & {"CHO", "CO", "COOH", "CHNNPh", "CNNPh"}
+
+
 def alditols(chain: Chain) -> tuple[Chain, ...] | NotApplicable:
     """Borohydride products: the alditol of an aldose, the two C-2 epimers of a ketose.
 
     An alditol is left unchanged, so it stands for itself (a relation member
-    named ``D-glucitol`` compares with the alditols of the unknowns).
+    named ``D-glucitol`` compares with the alditols of the unknowns); so does a
+    deoxy or otherwise modified alditol such as L-rhamnitol (no carbonyl,
+    carboxyl or hydrazone left to reduce).
     """
-    if chain.is_alditol:
+    if chain.is_alditol or _is_reduced(chain):
         return (chain,)
     if chain.carbonyl == "aldose":
         return (chain.replace(1, "CH2OH"),)
