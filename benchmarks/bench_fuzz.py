@@ -13,6 +13,7 @@ from __future__ import annotations
 
 import argparse
 import collections
+import json
 import sys
 import tempfile
 import time
@@ -45,11 +46,16 @@ def main() -> None:
     parser.add_argument("--count", type=int, default=10_000)
     parser.add_argument("--seed", type=int, default=20_241_202)
     parser.add_argument("--timeout", type=int, default=60, help="seconds before a run counts as a hang")
+    parser.add_argument("--part", default="0/1", help="K/N: run only the cases whose number is K modulo N")
+    parser.add_argument("--save", metavar="FILE.json", help="also write every outcome (for joining parts)")
     args = parser.parse_args()
+    k, n = (int(x) for x in args.part.split("/"))
     start = time.perf_counter()
     outcomes: list[Outcome] = []
     with tempfile.TemporaryDirectory() as folder:
         for case in cases(args.seed, args.count, scale=2):
+            if case.number % n != k:
+                continue
             outcomes.append(run_case(case, Path(folder), timeout_s=args.timeout))
             if len(outcomes) % 500 == 0:
                 print(f"\n{len(outcomes)} cases, {time.perf_counter() - start:.0f} s", flush=True)
@@ -64,6 +70,9 @@ def main() -> None:
         print(
             f"  case {o.case.number:>5} {o.case.category:<15} {o.case.command:<9} exit {o.code!s:<9} {o.seconds:7.2f} s"
         )
+    if args.save:
+        rows = [[o.case.number, o.case.category, o.case.command, o.code, round(o.seconds, 3)] for o in outcomes]
+        Path(args.save).write_text(json.dumps(rows), encoding="utf-8")
     failures = [o for o in outcomes if o.code not in (0, 2, 3)]
     print(f"\nfailures: {len(failures)}")
     for o in failures[:40]:

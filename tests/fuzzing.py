@@ -170,7 +170,7 @@ def _mutate(rng: random.Random, category: str, base: dict[str, Any], scale: int)
         )
         return _dump(data)
     if category == "many_unknowns":
-        n = rng.randint(4, 16 if scale == 1 else 80)
+        n = rng.randint(4, 16 if scale == 1 else 40)
         unknowns = [
             {"id": f"U{i}", "scope": {"carbons": rng.choice([[5], [6], [5, 6], [4, 5, 6, 7]])}} for i in range(n)
         ]

@@ -22,7 +22,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from workbench.chem import reactions
-from workbench.chem.catalogue import catalogue
+from workbench.chem.catalogue import Scope, catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.predictions import predict as record_of
@@ -320,12 +320,27 @@ def _scope_domains(project: Project) -> dict[str, list[Chain]]:
     return {u.id: list(catalogue(u.scope)) for u in project.unknowns}
 
 
+@functools.lru_cache(maxsize=8192)
+def _kept_in_scope(obs: Observation, scope: Scope) -> frozenset[Chain]:
+    """The candidates of ``scope`` a unary observation keeps, computed once per observation and scope."""
+    return frozenset(_kept(obs, list(catalogue(scope))))
+
+
 def unary_domains(project: Project, observations: Iterable[Observation]) -> dict[str, list[Chain]]:
-    """Each unknown's candidates that fit every unary observation given."""
+    """Each unknown's candidates that fit every unary observation given.
+
+    Unary filters are independent per candidate, so each observation's kept
+    set over the unknown's scope is cached and the domains are intersections.
+    """
     domains = _scope_domains(project)
     for obs in observations:
         if obs.UNARY:
-            domains[obs.unknown] = _kept(obs, domains[obs.unknown])
+            try:
+                keep = _kept_in_scope(obs, project.unknown(obs.unknown).scope)
+            except TypeError:  # an observation with an unhashable field: filter directly
+                domains[obs.unknown] = _kept(obs, domains[obs.unknown])
+                continue
+            domains[obs.unknown] = [c for c in domains[obs.unknown] if c in keep]
     return domains
 
 
@@ -368,9 +383,52 @@ def is_consistent(project: Project, observations: Iterable[Observation]) -> bool
 
 
 # ------------------------------------------------------------------ conflicts
-def _conflict_sets(project: Project, observations: list[Observation]) -> list[tuple[str, ...]]:
+class _SubsetNetworks:
+    """Networks of many subsets of the same observations, for the conflict search and the relief.
+
+    Each unary observation's kept candidates and each relation's constraints
+    are computed once and reused (unary filters are independent per candidate).
+    """
+
+    def __init__(self, project: Project) -> None:
+        self.project = project
+        self.scope = _scope_domains(project)
+        self.kept: dict[str, frozenset[Chain]] = {}
+        self.relations: dict[str, tuple[list[Binary], dict[str, Chain]]] = {}
+
+    def network(self, subset: Iterable[Observation]) -> tuple[dict[str, list], list[Binary]]:
+        domains: dict[str, list] = dict(self.scope)
+        constraints: list[Binary] = []
+        fixed: dict[str, Chain] = {}
+        for obs in subset:
+            if obs.UNARY:
+                if obs.id not in self.kept:
+                    self.kept[obs.id] = frozenset(_kept(obs, self.scope[obs.unknown]))
+                keep = self.kept[obs.id]
+                domains[obs.unknown] = [c for c in domains[obs.unknown] if c in keep]
+            else:
+                if obs.id not in self.relations:
+                    self.relations[obs.id] = constraints_of(self.project, obs)
+                cons, named = self.relations[obs.id]
+                constraints += cons
+                fixed.update(named)
+        domains.update(_fixed_domains(fixed))
+        return domains, constraints
+
+    def consistent(self, subset: list[Observation]) -> bool:
+        domains, constraints = self.network(subset)
+        return all(domains.values()) and find_solution(domains, constraints) is not None
+
+    def survivors(self, subset: list[Observation]) -> dict[str, list[Chain]] | None:
+        domains, constraints = self.network(subset)
+        out = supported_domains(domains, constraints) if all(domains.values()) else None
+        return None if out is None else {k: v for k, v in out.items() if not k.startswith("=")}
+
+
+def _conflict_sets(project: Project, observations: list[Observation], networks: _SubsetNetworks | None = None):
     """Several minimal conflicting sets (see :mod:`workbench.evidence.conflicts`)."""
-    return conflict_sets(observations, lambda obs: is_consistent(project, obs), key=lambda o: o.id)
+    networks = networks or _SubsetNetworks(project)
+    return conflict_sets(observations, networks.consistent, key=lambda o: o.id)
 
 
 # ------------------------------------------------------------------ solving
@@ -534,10 +592,11 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
     clean = all(step.status != "contradicts" for step in trail)
     final: Mapping[str, Sequence[Chain]] | None = current if clean else _survivors(project, active)
     if final is None:
-        conflicts = _conflict_sets(project, active)
+        networks = _SubsetNetworks(project)
+        conflicts = _conflict_sets(project, active, networks)
         for oid in sorted({o for c in conflicts for o in c}, key=[o.id for o in active].index):
             rest = [o for o in active if o.id != oid]
-            alt = _survivors(project, rest)
+            alt = networks.survivors(rest)
             if alt is not None:
                 relief[oid] = {u: tuple(alt[u]) for u in project.unknown_ids}
         final = {u: () for u in project.unknown_ids}
