@@ -41,6 +41,22 @@ def _parse_number(text: str, integer: bool) -> Any:
     return number
 
 
+def _parse_list(text: str, integer: bool) -> Any:
+    """A list of numbers from ``2, 3, 6`` (or ``2;3;6``), or the text itself when it does not parse."""
+    t = text.strip().strip("[]")
+    if not t:
+        return None
+    out = []
+    for part in t.replace(";", ",").split(","):
+        if not part.strip():
+            continue
+        value = _parse_number(part, integer)
+        if isinstance(value, str):
+            return text
+        out.append(value)
+    return out
+
+
 class FieldEditor:
     """Label, control and inline message for one field of an observation kind."""
 
@@ -109,6 +125,9 @@ class FieldEditor:
             if spec.unit:
                 placeholder += f" in {spec.unit}"
             return w.Text(placeholder=placeholder, continuous_update=False, layout=_wide_layout())
+        if spec.type in ("positions", "numbers"):
+            placeholder = "carbon numbers, e.g. 2, 3, 6" if spec.type == "positions" else "numbers, e.g. 3, 2, 1"
+            return w.Text(placeholder=placeholder, continuous_update=False, layout=_wide_layout())
         return w.Text(continuous_update=False, layout=_wide_layout())
 
     def _container(self) -> w.Widget:
@@ -132,6 +151,8 @@ class FieldEditor:
             return _parse_number(value or "", spec.type == "int")
         if spec.type == "members":
             return list(value) or None
+        if spec.type in ("positions", "numbers"):
+            return _parse_list(value or "", spec.type == "positions")
         if spec.type in ("member", "text"):
             return (value.strip() or None) if isinstance(value, str) else value
         return value
@@ -143,6 +164,8 @@ class FieldEditor:
             self.control.value = "" if value is None else f"{value:g}" if isinstance(value, float) else str(value)
         elif spec.type == "members":
             self.control.value = list(value or [])
+        elif spec.type in ("positions", "numbers"):
+            self.control.value = "" if value is None else ", ".join(f"{v:g}" for v in value)
         elif spec.type in ("member", "text"):
             self.control.value = "" if value is None else str(value)
         elif spec.type == "unknown":
