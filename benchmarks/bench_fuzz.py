@@ -47,6 +47,7 @@ def main() -> None:
     parser.add_argument("--seed", type=int, default=20_241_202)
     parser.add_argument("--timeout", type=int, default=60, help="seconds before a run counts as a hang")
     parser.add_argument("--part", default="0/1", help="K/N: run only the cases whose number is K modulo N")
+    parser.add_argument("--first", type=int, default=0, help="skip the cases numbered below this")
     parser.add_argument("--save", metavar="FILE.json", help="also write every outcome (for joining parts)")
     args = parser.parse_args()
     k, n = (int(x) for x in args.part.split("/"))
@@ -54,7 +55,7 @@ def main() -> None:
     outcomes: list[Outcome] = []
     with tempfile.TemporaryDirectory() as folder:
         for case in cases(args.seed, args.count, scale=2):
-            if case.number % n != k:
+            if case.number % n != k or case.number < args.first:
                 continue
             outcomes.append(run_case(case, Path(folder), timeout_s=args.timeout))
             if len(outcomes) % 500 == 0:
