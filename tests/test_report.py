@@ -201,6 +201,9 @@ def test_deoxyhexose_report_names_the_epimers_removed_last_as_rivals():
     rows = re.findall(r"<tr>(.*?)</tr>", rivals)[1:]
     assert rows and all(any(f"<b>{oid}</b>" in row for oid in last) for row in rows)
     assert "invented 2025-01-27" in rivals  # who recorded the removing observation, and when
+    # glucose and galactose are C-4 epimers, talose and galactose C-2 epimers (common practice)
+    assert re.search(r"L-quinovose</b><br><span[^>]*>C-4 epimer", rivals)
+    assert re.search(r"6-deoxy-L-talo-hexose</b><br><span[^>]*>C-2 epimer", rivals)
     # the eliminated table leads with the latest removals, so the epimers appear although 275 were removed
     candidates = _section(html, "Candidates")
     table = candidates[candidates.index("ss-eliminated") :]

@@ -64,6 +64,19 @@ def _recorded(obs) -> str:
     return " ".join(x for x in (obs.by, obs.recorded) if x) or "-"
 
 
+def _relation(rival, survivors) -> str:
+    """How a rival differs from the answer, e.g. "C-4 epimer", as a small second line."""
+    if rival.inverted is None or not survivors:
+        return ""
+    if len(rival.inverted) == 1:
+        text = f"C-{rival.inverted[0]} epimer"
+    elif rival.inverted:
+        text = "inverted at " + ", ".join(f"C-{k}" for k in rival.inverted)
+    else:
+        return ""
+    return f'<br><span class="ss-meta">{esc(text)}</span>'
+
+
 def rivals_html(solution, uid: str, limit: int = RIVALS_SHOWN) -> str:
     """The closest rivals of ``uid``'s answer: each with what removed it, why, and who recorded that.
 
@@ -74,9 +87,10 @@ def rivals_html(solution, uid: str, limit: int = RIVALS_SHOWN) -> str:
     if not rivals:
         return f'<p class="ss-meta">{esc(uid)}: no rival; the scope holds one candidate.</p>'
     project = solution.project
+    survivors = solution.survivors[uid]
     rows = []
     for rival in rivals:
-        name = f"<b>{esc(display_name(rival.chain))}</b>"
+        name = f"<b>{esc(display_name(rival.chain))}</b>" + _relation(rival, survivors)
         if rival.survives:
             share = f"{rival.probability:.0%}" if rival.probability is not None else "-"
             rows.append((name, f"still possible ({esc(share)})", "-", "-", "-"))

@@ -23,7 +23,9 @@ class Rival:
     ``removed_by`` is the id of the observation that eliminated it (empty for
     a survivor), ``step`` its index in the trail (the trail's length for a
     survivor), ``reason`` why it was removed, ``probability`` its share of
-    belief (survivors only, else ``None``).
+    belief (survivors only, else ``None``), ``inverted`` the carbons (numbered
+    from C-1) whose configuration differs from the leading survivor's, or
+    ``None`` for another constitution or when nothing survives.
     """
 
     chain: Chain
@@ -31,6 +33,7 @@ class Rival:
     step: int
     reason: str
     probability: float | None
+    inverted: tuple[int, ...] | None = None
 
     @property
     def survives(self) -> bool:
@@ -68,6 +71,13 @@ def _distance(a: Chain, b: Chain | None) -> int:
     return sum(x != y for x, y in zip(a.sides, b.sides, strict=True))
 
 
+def _inverted(a: Chain, b: Chain | None) -> tuple[int, ...] | None:
+    """Carbons (1-based) whose configuration differs between chains of one constitution."""
+    if b is None or a.groups != b.groups:
+        return None
+    return tuple(i + 1 for i, (x, y) in enumerate(zip(a.sides, b.sides, strict=True)) if x != y)
+
+
 def closest_rivals(solution, uid: str, limit: int = 6) -> tuple[Rival, ...]:
     """Up to ``limit`` rivals of ``uid``'s leading survivor, closest first.
 
@@ -79,13 +89,13 @@ def closest_rivals(solution, uid: str, limit: int = 6) -> tuple[Rival, ...]:
     ranked = sorted(probabilities, key=lambda c: -probabilities[c])
     leader = ranked[0] if ranked else None
     end = len(solution.trail)
-    out = [Rival(c, "", end, "", probabilities[c]) for c in ranked[1:]]
+    out = [Rival(c, "", end, "", probabilities[c], _inverted(c, leader)) for c in ranked[1:]]
     removed: list[tuple[int, int, int, Rival]] = []
     order = 0
     for index, step in enumerate(solution.trail):
         reasons = step.reasons.get(uid, {})
         for chain in step.eliminated.get(uid, ()):
-            rival = Rival(chain, step.observation, index, reasons.get(chain, ""), None)
+            rival = Rival(chain, step.observation, index, reasons.get(chain, ""), None, _inverted(chain, leader))
             removed.append((-index, _distance(chain, leader), order, rival))
             order += 1
     out += [r for *_, r in sorted(removed, key=lambda item: item[:3])]
