@@ -134,3 +134,30 @@ def test_csv_cells_that_look_like_formulas_stay_text():
     (row,) = csv.DictReader(io.StringIO(csv_text(survivor_rows(solve(project)))))
     # the one D-aldotriose is D-glyceraldehyde (common practice); the id is kept as text, not a formula
     assert row["unknown"] == "'=1+1" and row["name"] == "D-glyceraldehyde"
+
+
+def test_residue_survivors_carry_their_condensed_name_and_the_released_sugar():
+    project = project_from_dict(
+        {
+            "format": "stereosieve-project",
+            "version": 1,
+            "unknowns": [{"id": "R1", "type": "residue", "scope": {"sugars": ["D-glucose"]}}],
+            "observations": [
+                {"id": "E1", "kind": "methylation_analysis", "unknown": "R1", "methyl": [2, 3, 6], "acetyl": [1, 4, 5]},
+                {"id": "E2", "kind": "anomer", "unknown": "R1", "value": "alpha"},
+            ],
+        }
+    )
+    rows = survivor_rows(solve(project))
+    # 1,4,5-tri-O-acetyl-2,3,6-tri-O-methyl-glucitol: a 4-linked glucopyranose or a 5-linked glucofuranose
+    # (methylation analysis, Bjoerndal et al. 1970 [memory]; REFERENCE_VALUES.md "Glycan residues")
+    table = list(csv.DictReader(io.StringIO(csv_text(rows))))
+    assert sorted(r["name"] for r in table) == ["->4)-alpha-D-Glcp-(1->", "->5)-alpha-D-Glcf-(1->"]
+    assert {r["inchikey"] for r in table} == {ALDEHYDO_D_GLUCOSE}  # the sugar released on hydrolysis
+    mols = _read_sdf(sdf_text(rows))
+    assert {m.GetProp("ring") for m in mols} == {"pyranose", "furanose"}
+    assert {m.GetProp("linked_positions") for m in mols} == {"4", "5"}
+    # each structure is the residue: C6 with two attachment points (dummy atoms)
+    for mol in mols:
+        atoms = [a.GetAtomicNum() for a in mol.GetAtoms()]
+        assert atoms.count(6) == 6 and atoms.count(0) == 2

@@ -18,6 +18,7 @@ import os
 from pathlib import Path
 
 from workbench import __version__
+from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.display.board import board_html
 from workbench.display.chart import narrowing_chart
@@ -64,6 +65,13 @@ def _recorded(obs) -> str:
     return " ".join(x for x in (obs.by, obs.recorded) if x) or "-"
 
 
+def candidate_name(candidate) -> str:
+    """A candidate's name: the trivial or systematic name of a sugar, the condensed name of a residue."""
+    if isinstance(candidate, Chain):
+        return display_name(candidate)
+    return str(getattr(candidate, "display", candidate))
+
+
 def _relation(rival, survivors) -> str:
     """How a rival differs from the answer, e.g. "C-4 epimer", as a small second line."""
     if rival.inverted is None or not survivors:
@@ -90,7 +98,7 @@ def rivals_html(solution, uid: str, limit: int = RIVALS_SHOWN) -> str:
     survivors = solution.survivors[uid]
     rows = []
     for rival in rivals:
-        name = f"<b>{esc(display_name(rival.chain))}</b>" + _relation(rival, survivors)
+        name = f"<b>{esc(candidate_name(rival.chain))}</b>" + _relation(rival, survivors)
         if rival.survives:
             share = f"{rival.probability:.0%}" if rival.probability is not None else "-"
             rows.append((name, f"still possible ({esc(share)})", "-", "-", "-"))
@@ -109,11 +117,11 @@ def _summary(solution) -> str:
         unknown = solution.project.unknown(uid)
         label = f" ({unknown.label})" if unknown.label else ""
         if len(survivors) == 1:
-            verdict = f"assigned as <b>{esc(display_name(survivors[0]))}</b>"
+            verdict = f"assigned as <b>{esc(candidate_name(survivors[0]))}</b>"
         elif not survivors:
             verdict = f'<b style="color:{CONFLICT}">no candidate fits all the evidence</b>'
         else:
-            names = ", ".join(display_name(c) for c in survivors[:6])
+            names = ", ".join(candidate_name(c) for c in survivors[:6])
             more = f" and {len(survivors) - 6} more" if len(survivors) > 6 else ""
             verdict = f"{len(survivors)} candidates remain: {esc(names)}{esc(more)}"
         items.append(

@@ -10,6 +10,7 @@ same observation, those nearest the leading survivor in structure come first
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 from workbench.chem.chain import Chain
 
@@ -28,7 +29,7 @@ class Rival:
     ``None`` for another constitution or when nothing survives.
     """
 
-    chain: Chain
+    chain: Any  # a Chain, or a glycan Residue (Contract 5)
     removed_by: str
     step: int
     reason: str
@@ -59,21 +60,27 @@ def survivor_probabilities(solution, uid: str) -> dict[Chain, float]:
     return {c: share for c in survivors}
 
 
-def _distance(a: Chain, b: Chain | None) -> int:
-    """Stereocentres that differ between two chains of one constitution; large for another constitution."""
+def _distance(a: Any, b: Any) -> int:
+    """Stereocentres that differ between two chains of one constitution; large for another constitution.
+
+    A glycan residue (Contract 5) adds one for another ring size, one for the
+    other anomer and one per linked position not shared.
+    """
     if b is None:
         return 0
-    if not isinstance(a, Chain) or not isinstance(b, Chain):  # glycan residues: sugar, then ring, anomer, linkage
-        ring, anomer = int(a.ring != b.ring), int(a.anomer != b.anomer)
-        return _distance(a.chain, b.chain) + ring + anomer + len(set(a.linked) ^ set(b.linked))
+    if not isinstance(a, Chain) or not isinstance(b, Chain):
+        if isinstance(a, Chain) or isinstance(b, Chain):
+            return 1000
+        extra = (a.ring != b.ring) + (a.anomer != b.anomer) + len(set(a.linked) ^ set(b.linked))
+        return _distance(a.chain, b.chain) + extra
     if a.groups != b.groups:
         return 100 + sum(x != y for x, y in zip(a.groups, b.groups, strict=False)) + abs(len(a.groups) - len(b.groups))
     return sum(x != y for x, y in zip(a.sides, b.sides, strict=True))
 
 
-def _inverted(a: Chain, b: Chain | None) -> tuple[int, ...] | None:
-    """Carbons (1-based) whose configuration differs between chains of one constitution."""
-    if b is None or a.groups != b.groups:
+def _inverted(a: Any, b: Any) -> tuple[int, ...] | None:
+    """Carbons (1-based) whose configuration differs between chains of one constitution (not residues)."""
+    if not isinstance(a, Chain) or not isinstance(b, Chain) or a.groups != b.groups:
         return None
     return tuple(i + 1 for i, (x, y) in enumerate(zip(a.sides, b.sides, strict=True)) if x != y)
 
