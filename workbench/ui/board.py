@@ -55,6 +55,7 @@ class CandidateBoard(Panel):
                 self.notices.widget,
             ]
         )
+        self.widget.add_class("ss-board-panel")  # a handle for styles and browser tests
         self.refresh()
 
     def _ensure_tabs(self) -> None:

@@ -204,6 +204,7 @@ class ChairPanel(Panel):
                 self.notices.widget,
             ]
         )
+        self.widget.add_class("ss-chairs-panel")  # a handle for styles and browser tests
         self._session_changed()
 
     def _session_changed(self) -> None:

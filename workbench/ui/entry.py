@@ -81,6 +81,7 @@ class EvidenceForm(Panel):
                 self.notices.widget,
             ]
         )
+        self.widget.add_class("ss-form")  # a handle for styles and browser tests
 
     # ------------------------------------------------------------ building
     def _build_fields(self, keep: Mapping[str, Any] | None = None) -> None:

@@ -39,6 +39,7 @@ class LedgerPanel(Panel):
         self.widget = w.VBox(
             [heading("Evidence ledger"), self.rows, w.HBox([self.undo_button, self.all_on]), self.notices.widget]
         )
+        self.widget.add_class("ss-ledger-panel")  # a handle for styles and browser tests
         self.refresh()
 
     def _row(self, obs, step) -> w.Widget:

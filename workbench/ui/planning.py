@@ -63,6 +63,7 @@ class NextExperimentPanel(Panel):
                 self.notices.widget,
             ]
         )
+        self.widget.add_class("ss-plan-panel")  # a handle for styles and browser tests
         if follow:
             self.rank()
 

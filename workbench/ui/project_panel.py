@@ -69,6 +69,7 @@ class ScopeEditor:
             ],
             layout=w.Layout(border_bottom="1px solid #d9d5cb", padding="3px 0"),
         )
+        self.widget.add_class("ss-project-panel")  # a handle for styles and browser tests
 
     @staticmethod
     def _count_html(scope: Scope) -> str:
