@@ -32,6 +32,8 @@ def _fresh(key: str, chain):
         return outcomes.product_key(rest, chain)
     if head == "derived":
         return tables._DERIVED[rest](chain)
+    if head == "estimate":
+        return outcomes.estimate(tables._probe(rest), chain)
     return outcomes.predict(tables._probe(key), chain)
 
 
@@ -103,6 +105,23 @@ def test_the_rules_key_hashes_the_chemistry_source(tmp_path, monkeypatch):
     reactions.write_text(reactions.read_text() + "\n# a changed rule\n")
     there = subprocess.run([sys.executable, "-c", code], cwd=tmp_path, capture_output=True, text=True, check=True)
     assert here.stdout.strip() and here.stdout != there.stdout
+
+
+QUANTITIES = [
+    {"kind": "anomer_ratio", "alpha_fraction": 0.38},
+    {"kind": "specific_rotation", "value": -40.0},
+    {"kind": "coupling_constant", "form": "beta_pyranose", "pair": "H1-H2", "value": 7.9},
+]
+
+
+@pytest.mark.parametrize("fields", QUANTITIES, ids=lambda f: f["kind"])
+def test_measured_quantities_are_judged_once_per_calibrated_estimate_with_the_same_result(fields):
+    chains = list(catalogue(Scope(carbons=(5, 6), modifications=("any",))))
+    obs = observation_from_dict({"id": "E1", "unknown": "U1", **fields})
+    assert tables.keep(obs, chains, outcomes.fits) == [c for c in chains if outcomes.fits(obs, c).fits]
+    judged = tables.verdicts(obs, chains, outcomes.fits)
+    fresh = [outcomes.fits(obs, c) for c in chains]
+    assert [(v.fits, v.flagged, v.likelihood) for v in judged] == [(v.fits, v.flagged, v.likelihood) for v in fresh]
 
 
 LOGIC = [

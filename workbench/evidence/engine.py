@@ -521,21 +521,11 @@ def _gone(before: Sequence[Chain], after: Sequence[Chain]) -> tuple[Chain, ...]:
 
 def _flagged(obs: Observation, chains: Sequence[Chain]) -> list[tuple[Chain, Verdict]]:
     """The survivors of unary ``obs`` that are kept only with a flag, with their verdicts."""
-    if (
-        tables.observation_key(obs) is not None
-        and obs.KIND not in tables.ESTIMATED
-        and chains
-        and isinstance(chains[0], Chain)
-    ):
-        got, _ = tables.codes(tables.observation_key(obs) or "", chains)
-        uniq, first = np.unique(got, return_index=True)
-        flagged = {code for code, i in zip(uniq.tolist(), first.tolist(), strict=True) if fits(obs, chains[i]).flagged}
-        if not flagged:
-            return []
-        picked: Sequence[Chain] = [c for c, code in zip(chains, got.tolist(), strict=True) if code in flagged]
-    else:
-        picked = chains
-    return [(c, v) for c in picked if (v := fits(obs, c)).flagged]
+    judged = tables.verdicts(obs, chains, fits) if chains and isinstance(chains[0], Chain) else None
+    if judged is None:
+        return [(c, v) for c in chains if (v := fits(obs, c)).flagged]
+    # judged once per value; the flagged ones are worded for each candidate (the reason names it)
+    return [(c, fits(obs, c)) for c, v in zip(chains, judged, strict=True) if v.flagged]
 
 
 def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:

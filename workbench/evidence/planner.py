@@ -53,8 +53,8 @@ from workbench.chem.parse import resolve
 from workbench.evidence import tables
 from workbench.evidence.costs import Cost, cautions_of, cost_of
 from workbench.evidence.engine import Solution, joint_worlds, solve
-from workbench.evidence.observations import DEFAULT_SIGMA, OBSERVATION_TYPES
-from workbench.evidence.outcomes import FLAT_DENSITY, NO_PREDICTION, estimate, outcome_label, product_key
+from workbench.evidence.observations import DEFAULT_SIGMA
+from workbench.evidence.outcomes import FLAT_DENSITY, NO_PREDICTION, outcome_label, product_key
 from workbench.evidence.project import Project
 from workbench.evidence.residue_outcomes import residue_experiments
 from workbench.evidence.tables import column_key
@@ -206,7 +206,7 @@ def _noisy_information(
     kind: str, params: dict, survivors: Sequence[Chain], probs: Sequence[float]
 ) -> tuple[float, float]:
     """Mutual information (bits) between candidate and noisy reading, and 2**(H - I) (see module docstring)."""
-    probe: Any = OBSERVATION_TYPES[kind]("?", **params)
+    probe_fields = {k: v for k, v in params.items() if k != "unknown"}
     lo, hi, points = _GRID[kind]
     grid = np.linspace(lo, hi, points)
     step = grid[1] - grid[0]
@@ -215,10 +215,12 @@ def _noisy_information(
     densities: dict[tuple, np.ndarray] = {}
     mass: dict[tuple, float] = defaultdict(float)
     impossible = 0.0
-    for chain, p in zip(survivors, probs, strict=True):
-        if p <= 0:
-            continue
-        found = estimate(probe, chain)
+    # one calibrated estimate per distinct value (outcome tables), with the probability mass it carries
+    got, found_values = tables.codes(tables.estimate_key(kind, **probe_fields), survivors)
+    code_mass = np.bincount(got, weights=np.asarray(probs, dtype=float), minlength=len(found_values))
+    for code in np.flatnonzero(code_mass > 0).tolist():
+        p = float(code_mass[code])
+        found = found_values[code]
         if found is None:
             impossible += p
             continue

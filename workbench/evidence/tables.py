@@ -57,6 +57,7 @@ __all__ = [
     "cache_path",
     "codes",
     "column_key",
+    "estimate_key",
     "keep",
     "observation_key",
     "rows",
@@ -143,8 +144,24 @@ def _compute_fn(key: str) -> Callable[[Chain], Hashable]:
         return lambda chain: outcomes.product_key(reaction, chain)
     if head == "derived":
         return _DERIVED[key.split("|", 1)[1]]
+    if head == "estimate":  # the calibrated estimate (value, standard error, class) of a measured quantity
+        probe = _probe(key.split("|", 1)[1])
+        return lambda chain: outcomes.estimate(probe, chain)
     probe = _probe(key)
     return lambda chain: outcomes.predict(probe, chain)
+
+
+def estimate_key(kind: str, **params: Any) -> str:
+    """The column of a measured quantity's calibrated estimates (:func:`workbench.evidence.outcomes.estimate`)."""
+    return "estimate|" + column_key(kind, **params)
+
+
+def _judged_by(obs: Any) -> str | None:
+    """The column whose value decides ``obs``'s verdict on a candidate (None: no column applies)."""
+    key = observation_key(obs)
+    if key is None:
+        return None
+    return "estimate|" + key if obs.KIND in ESTIMATED else key
 
 
 def _aldaric_word(chain: Chain | None) -> str:
@@ -221,6 +238,7 @@ def standard_keys() -> tuple[str, ...]:
     for form in ("alpha_pyranose", "beta_pyranose"):
         for pair in ("H1-H2", "H2-H3", "H3-H4", "H4-H5", "H4-H5ax", "H4-H5eq"):
             keys.append(column_key("coupling_constant", form=form, pair=pair))
+    keys += ["estimate|" + k for k in keys if k.split("|", 1)[0] in ESTIMATED]
     keys += [f"product|{r}" for r in ("osazone", "alditol", "aldaric_acid", "aldonic_acid")]
     keys += [f"derived|{d}" for d in _DERIVED]
     return tuple(keys)
@@ -468,11 +486,12 @@ def keep(obs: Any, chains: Sequence[Chain], verdict: Callable[[Any, Chain], Any]
 
     ``verdict(obs, chain)`` must depend on the chain only through its
     predicted value (true of :func:`workbench.evidence.outcomes.fits`); it is
-    called on one representative chain per value. Returns None when the
-    observation has no column (the caller then judges every chain).
+    called on one representative chain per value (measured quantities: per
+    distinct calibrated estimate). Returns None when the observation has no
+    column (the caller then judges every chain).
     """
-    key = observation_key(obs)
-    if key is None or obs.KIND in ESTIMATED or not chains:
+    key = _judged_by(obs)
+    if key is None or not chains:
         return None
     got, _ = _STORE.codes(key, chains)
     uniq, first = np.unique(got, return_index=True)
@@ -488,8 +507,8 @@ def verdicts(obs: Any, chains: Sequence[Chain], verdict: Callable[[Any, Chain], 
     name the representative: use it for the outcome, not for wording). None
     when the observation has no column (the caller judges every chain).
     """
-    key = observation_key(obs)
-    if key is None or obs.KIND in ESTIMATED or not chains:
+    key = _judged_by(obs)
+    if key is None or not chains:
         return None
     got, _ = _STORE.codes(key, chains)
     uniq, first = np.unique(got, return_index=True)
