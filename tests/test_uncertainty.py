@@ -329,3 +329,16 @@ def test_predict_json_gives_each_quantity_its_standard_error_and_class(capsys):
     assert main(["predict", "D-fructose", "--json"]) == 0
     q = json.loads(capsys.readouterr().out)["predictions"]["quantities"]
     assert any("ketose" in f for f in q["alpha_share"]["flags"])
+
+
+def test_board_and_text_show_a_probability_bar_per_survivor():
+    from workbench.display.board import solution_html
+    from workbench.report_text import solution_text
+
+    # D-glucose +52.7 (Bruice 8th ed.): the only D-aldohexose with a published value this close
+    solution = solve(_project(HEX, [_observation("specific_rotation", 52.7)]))
+    html = solution_html(solution)
+    assert html.count('class="ss-prob"') == len(solution.survivors["U"])
+    text = solution_text(solution)
+    first = next(line for line in text.splitlines() if line.strip().startswith("D-glucose"))
+    assert "#" in first and f"{solution.probability('U', resolve('D-glucose')):.3f}" in first

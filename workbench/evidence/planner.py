@@ -474,6 +474,9 @@ def _advice_for_conflicts(solution: Solution) -> list[str]:
         for oid in c:
             counts[oid] += 1
     lines = ["The evidence is contradictory; no experiment is ranked until the conflict is resolved."]
+    if solution.suspects:
+        ranked = ", ".join(f"{oid} ({p:.2f})" for oid, p in solution.suspects[:4])
+        lines.append(f"Most likely wrong, with the chance that the record is wrong: {ranked}.")
     for oid in sorted(counts, key=lambda o: (-counts[o], o)):
         obs = solution.project.observation(oid)
         left = solution.relief.get(oid)
