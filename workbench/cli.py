@@ -172,8 +172,8 @@ def _write_or_print(text: str, output: str | None, protect: tuple[str, ...], wha
     """``text`` to the file ``output`` (checked, atomic, umask) or to standard output."""
     from workbench.files import check_output, write_text_atomic
 
-    if output is None:
-        sys.stdout.write(text)
+    if output is None:  # data for a pipe as it is; on a terminal, controls from the file shown as escapes
+        sys.stdout.write(terminal_text(text) if sys.stdout.isatty() else text)
         return
     target = check_output(output, protect, what=what, example=example)
     written = write_text_atomic(target, text)

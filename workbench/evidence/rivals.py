@@ -45,16 +45,16 @@ class Rival:
 def survivor_probabilities(solution, uid: str) -> dict[Chain, float]:
     """Each survivor of ``uid`` with its probability (they sum to 1; empty when nothing survives).
 
-    The posterior of the solution where it carries one (``solution.probabilities``,
-    Contract 3), else a uniform share over the survivors: every survivor fits
-    every observation, so without weights none is preferred.
+    The posterior of the solution (``solution.probabilities``, Contract 3).
+    Where the engine gives none (contradictory evidence leaves no posterior),
+    a uniform share over the survivors: every survivor fits every applied
+    observation, so without weights none is preferred.
     """
     survivors = solution.survivors[uid]
     if not survivors:
         return {}
-    posterior = getattr(solution, "probabilities", None)
-    if isinstance(posterior, dict) and uid in posterior:
-        given = posterior[uid]
+    given = solution.probabilities.get(uid)
+    if given:
         return {c: float(given.get(c, 0.0)) for c in survivors}
     share = 1.0 / len(survivors)
     return {c: share for c in survivors}
