@@ -33,6 +33,7 @@ from workbench.frames import (
     PLAN_COLUMNS,
     RESIDUE_COLUMNS,
     SURVIVOR_COLUMNS,
+    SUSPECT_COLUMNS,
     TRAIL_COLUMNS,
     UNKNOWN_COLUMNS,
     conflicts_frame,
@@ -43,6 +44,7 @@ from workbench.frames import (
     predictions_frame,
     residues_frame,
     survivors_frame,
+    suspects_frame,
     trail_frame,
     unknowns_frame,
 )
@@ -95,12 +97,30 @@ def test_survivor_probabilities_sum_to_one_per_unknown():
     assert frame["probability"].between(0, 1).all()
 
 
+def test_survivor_probabilities_and_entropy_are_those_of_the_posterior():
+    solution = solve(load_project(SAMPLES / "rare_pentose_epimerisation.json").without("E6", "E7"))
+    frame = survivors_frame(solution)
+    listed = solution_json(solution)["unknowns"]
+    for row in frame.itertuples():
+        (entry,) = [s for s in listed[row.unknown]["survivors"] if s["name"] == row.name]
+        assert row.probability == pytest.approx(entry["probability"], abs=1e-6)
+    summary = unknowns_frame(solution).set_index("unknown")
+    for uid, group in frame.groupby("unknown"):
+        p = group["probability"]
+        # Shannon entropy of the posterior, H = -sum p log2 p
+        assert summary.loc[uid, "entropy_bits"] == pytest.approx(-(p * p.map(math.log2)).sum(), abs=1e-9)
+    # L-ribose is settled (its osazone is L-arabinose's and it is not L-arabinose); its Kiliani-Fischer pair
+    # L-allose/L-altrose is not yet told apart, and either can be H1: one bit each, zero for P.
+    assert summary.loc["P", "entropy_bits"] == pytest.approx(0.0)
+    assert summary.loc["H1", "entropy_bits"] == pytest.approx(1.0)
+
+
 def test_unknowns_frame_counts(two_left):
     frame = unknowns_frame(two_left)
     assert tuple(frame.columns) == UNKNOWN_COLUMNS
     # Default scope C3-C7, both series: aldoses 2 + 4 + 8 + 16 + 32 = 62 (2^(n-2) stereoisomers), 2-ketoses
     # 1 + 2 + 4 + 8 + 16 = 31 (2^(n-3)); 93 in all. Without E6, D-allose and D-galactose are left (above).
-    assert frame.to_dict("records") == [
+    assert frame[["unknown", "label", "scope_count", "count"]].to_dict("records") == [
         {"unknown": "S1", "label": two_left.project.unknown("S1").label, "scope_count": 93, "count": 2}
     ]
     assert two_left.unknowns_frame().equals(frame)
@@ -277,6 +297,17 @@ def test_conflicts_frame_names_the_clashing_records():
     assert frame[frame["conflict"] == 1]["observation"].tolist() == ["E3", "E4"]
     assert frame["kind"].tolist()[:2] == ["alditol", "aldaric_acid"]
     assert conflicts_frame(solve(load_project(data_path(DEMO_PROJECT)))).empty
+    # the suspects of Contract 3, as solve --json lists them
+    suspects = suspects_frame(solution)
+    assert tuple(suspects.columns) == SUSPECT_COLUMNS
+    listed = solution_json(solution)["suspects"]
+    assert suspects["observation"].tolist() == [s["observation"] for s in listed]
+    assert suspects["probability_wrong"].round(4).tolist() == [s["probability_wrong"] for s in listed]
+    assert set(suspects["observation"]) == {"E3", "E4"} and suspects["probability_wrong"].between(0, 1).all()
+    wrong = dict(zip(suspects["observation"], suspects["probability_wrong"], strict=True))
+    assert frame["probability_wrong"].tolist() == [wrong["E3"], wrong["E4"]]
+    assert solution.suspects_frame().equals(suspects)
+    assert suspects_frame(solve(load_project(data_path(DEMO_PROJECT)))).empty
 
 
 def test_observations_frame_is_the_ledger(demo):
@@ -427,6 +458,7 @@ def test_every_column_is_documented_in_the_contributor_guide():
         RESIDUE_COLUMNS,
         TRAIL_COLUMNS,
         CONFLICT_COLUMNS,
+        SUSPECT_COLUMNS,
         OBSERVATION_COLUMNS,
         PLAN_COLUMNS,
         CURVE_COLUMNS,

@@ -11,6 +11,7 @@ columns may be added, never renamed or removed.
 - :func:`trail_frame`: every elimination, with the observation and the reason;
 - :func:`narrowing_frame`: candidates left per unknown after each step;
 - :func:`conflicts_frame`: the minimal conflicting sets of observations;
+- :func:`suspects_frame`: the observations most likely wrong, best first;
 - :func:`observations_frame`: the ledger of a project;
 - :func:`predictions_frame`: what chosen experiments predict, one row per candidate;
 - :func:`plan_frame`: the planner's ranking;
@@ -48,6 +49,7 @@ __all__ = [
     "RESIDUE_COLUMNS",
     "TRAIL_COLUMNS",
     "CONFLICT_COLUMNS",
+    "SUSPECT_COLUMNS",
     "OBSERVATION_COLUMNS",
     "PLAN_COLUMNS",
     "CURVE_COLUMNS",
@@ -58,6 +60,7 @@ __all__ = [
     "trail_frame",
     "narrowing_frame",
     "conflicts_frame",
+    "suspects_frame",
     "observations_frame",
     "predictions_frame",
     "plan_frame",
@@ -66,7 +69,7 @@ __all__ = [
 
 IDENTITY_COLUMNS = ("name", "systematic_name", "smiles", "inchikey")
 SURVIVOR_COLUMNS = ("unknown", *IDENTITY_COLUMNS, "probability", "flagged", "flags")
-UNKNOWN_COLUMNS = ("unknown", "label", "scope_count", "count")
+UNKNOWN_COLUMNS = ("unknown", "label", "scope_count", "count", "entropy_bits", "posterior")
 RESIDUE_COLUMNS = (
     "unknown",
     "name",
@@ -81,7 +84,8 @@ RESIDUE_COLUMNS = (
     "flags",
 )
 TRAIL_COLUMNS = ("step", "observation", "kind", "status", "unknown", "eliminated", "reason")
-CONFLICT_COLUMNS = ("conflict", "observation", "kind", "description")
+CONFLICT_COLUMNS = ("conflict", "observation", "kind", "description", "probability_wrong")
+SUSPECT_COLUMNS = ("observation", "kind", "description", "probability_wrong")
 OBSERVATION_COLUMNS = ("observation", "kind", "references", "description", "recorded", "by", "note")
 PLAN_COLUMNS = (
     "rank",
@@ -221,13 +225,20 @@ def residues_frame(solution: Solution) -> pd.DataFrame:
 
 
 def unknowns_frame(solution: Solution) -> pd.DataFrame:
-    """One row per unknown in project order (columns :data:`UNKNOWN_COLUMNS`): its label, scope size and survivors."""
+    """One row per unknown in project order (columns :data:`UNKNOWN_COLUMNS`).
+
+    Its label, scope size, number of survivors, the entropy of its posterior
+    in bits (0 when one survivor is left; Contract 3) and how the posterior
+    was summed (``posterior``, as ``solve --json`` reports it).
+    """
     rows = [
         {
             "unknown": uid,
             "label": solution.project.unknown(uid).label,
             "scope_count": solution.scope_counts[uid],
             "count": len(solution.survivors[uid]),
+            "entropy_bits": solution.entropy.get(uid, 0.0) + 0.0,  # + 0.0 turns a -0.0 into 0.0
+            "posterior": solution.posterior_methods.get(uid, ""),
         }
         for uid in solution.project.unknown_ids
     ]
@@ -275,15 +286,47 @@ def narrowing_frame(solution: Solution) -> pd.DataFrame:
 def conflicts_frame(solution: Solution) -> pd.DataFrame:
     """One row per member of each minimal conflicting set (``conflict`` numbers the sets from 1).
 
+    ``probability_wrong`` is the chance that the record itself is wrong, from
+    the solution's suspects (Contract 3; ``<NA>`` for a member not ranked).
     Empty (with the columns of :data:`CONFLICT_COLUMNS`) when the evidence is consistent.
     """
     project = solution.project
+    wrong = dict(solution.suspects)
     rows = []
     for number, members in enumerate(solution.conflicts, start=1):
         for oid in members:
             obs = project.observation(oid)
-            rows.append({"conflict": number, "observation": oid, "kind": obs.KIND, "description": obs.describe()})
-    return _frame(rows, CONFLICT_COLUMNS)
+            rows.append(
+                {
+                    "conflict": number,
+                    "observation": oid,
+                    "kind": obs.KIND,
+                    "description": obs.describe(),
+                    "probability_wrong": wrong.get(oid, pd.NA),
+                }
+            )
+    frame = _frame(rows, CONFLICT_COLUMNS)
+    frame["probability_wrong"] = frame["probability_wrong"].astype("Float64")
+    return frame
+
+
+def suspects_frame(solution: Solution) -> pd.DataFrame:
+    """The observations most likely wrong when the evidence conflicts, best first (columns :data:`SUSPECT_COLUMNS`).
+
+    ``probability_wrong`` as ``solve --json`` lists it under ``suspects``
+    (Contract 3). Empty (with its columns) when nothing conflicts.
+    """
+    project = solution.project
+    rows = [
+        {
+            "observation": oid,
+            "kind": project.observation(oid).KIND,
+            "description": project.observation(oid).describe(),
+            "probability_wrong": p,
+        }
+        for oid, p in solution.suspects
+    ]
+    return _frame(rows, SUSPECT_COLUMNS)
 
 
 def observations_frame(project: Project) -> pd.DataFrame:

@@ -146,6 +146,12 @@ class Solution:
 
         return narrowing_frame(self)
 
+    def suspects_frame(self) -> pd.DataFrame:
+        """The observations most likely wrong, best first (:func:`workbench.frames.suspects_frame`)."""
+        from workbench.frames import suspects_frame
+
+        return suspects_frame(self)
+
     def conflicts_frame(self) -> pd.DataFrame:
         """The minimal conflicting sets, one row per member (:func:`workbench.frames.conflicts_frame`)."""
         from workbench.frames import conflicts_frame
