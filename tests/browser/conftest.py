@@ -112,7 +112,10 @@ def browser_page(tmp_path):
 
         def route(r):
             host = r.request.url.split("/")[2] if "://" in r.request.url else ""
-            if r.request.url.startswith(("data:", "blob:", "file:")) or host.split(":")[0] in ("127.0.0.1", "localhost"):
+            if r.request.url.startswith(("data:", "blob:", "file:")) or host.split(":")[0] in (
+                "127.0.0.1",
+                "localhost",
+            ):
                 r.continue_()
             else:
                 offsite.append(r.request.url)

@@ -86,7 +86,9 @@ def test_run_all_record_an_observation_and_the_board_shrinks(lab, browser_page, 
     page.locator(".ss-form select").first.select_option(
         label="D/L series: configuration at the highest-numbered stereocentre"
     )
-    page.locator(".ss-form button.widget-toggle-button", has_text="D").first.click()
+    series_d = page.locator(".ss-form").first.get_by_role("button", name="D", exact=True)
+    series_d.wait_for(state="visible")  # the form has rebuilt its fields for the new kind
+    series_d.click()
     page.locator(".ss-form button", has_text="Record").first.click()
     page.wait_for_function("document.querySelector('.ss-live').innerText.includes('S1: 2 left')", timeout=60_000)
     # the chosen toggle button stands out: filled with the accent colour
