@@ -272,3 +272,19 @@ def test_ulosonic_acids_are_refused_with_the_reason(text):
     with pytest.raises(NameNotRecognisedError) as err:
         resolve(text)
     assert "ulosonic" in str(err.value)
+
+
+def test_acetamido_and_o_methyl_sugars_round_trip_through_names_symbols_and_smiles():
+    # name -> structure -> name, symbol -> structure and SMILES (open and ring forms) -> structure
+    from workbench.chem import ring_forms, systematic_name, trivial_name
+
+    scope = Scope(carbons=(5, 6, 7), modifications=("acetamido:2", "acetamido:2+deoxy:6", "omethyl:2"))
+    for chain in catalogue(scope):
+        assert from_name(systematic_name(chain)) == chain
+        if trivial_name(chain):
+            assert from_name(trivial_name(chain)) == chain
+        if symbol(chain):
+            assert from_symbol(symbol(chain)) == chain
+        assert from_smiles(to_smiles(chain)) == chain
+        for form in ring_forms(chain):
+            assert from_smiles(to_smiles(chain, form)) == chain

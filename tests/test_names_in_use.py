@@ -177,3 +177,17 @@ def test_alditol_member_stands_for_itself_in_alditol_relations():
     )
     survivors = sorted(display_name(c) for c in solve(project).survivors["U"])
     assert survivors == ["D-glucose", "L-gulose"]
+
+
+@pytest.mark.parametrize(("carbons", "count"), [(4, 3), (5, 4), (6, 10), (7, 16)])
+def test_alditol_names_count_the_distinct_alditols(carbons, count):
+    # Kirk-Othmer, "Sugar Alcohols" (REFERENCE_VALUES.md): 3 tetritols, 4 pentitols, 10 hexitols,
+    # 16 heptitols counting meso and active forms; each name must read back as the same compound
+    from workbench.chem import catalogue
+    from workbench.chem.catalogue import Scope
+
+    alditols = {c.replace(1, "CH2OH") for c in catalogue(Scope(carbons=(carbons,), carbonyl=("aldose",)))}
+    names = {display_name(c) for c in alditols}
+    assert len(names) == count
+    for chain in alditols:
+        assert to_smiles(resolve(display_name(chain))) == to_smiles(chain)

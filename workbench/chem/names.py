@@ -397,7 +397,9 @@ def ring_name(text: str) -> tuple[Chain, str, str | None, bool] | None:
 
 # ------------------------------------------------------------------ alditols
 _ALDITOL_NAME = re.compile(r"^(?:(?P<series>[DL])-)?(?P<root>[a-z]+)itol$")
-_SYSTEMATIC_ALDITOL = re.compile(r"^(?:(?P<series>[DL])-)?(?P<prefix>[a-z]+)-(?P<stem>tetr|pent|hex|hept|oct|non)itol$")
+_SYSTEMATIC_ALDITOL = re.compile(
+    r"^(?:(?P<series>[DL])-)?(?P<prefix>[a-z]+(?:-[DL]-[a-z]+)*)-(?P<stem>tetr|pent|hex|hept|oct|non)itol$"
+)
 
 
 def is_alditol(chain: Chain) -> bool:
@@ -405,16 +407,16 @@ def is_alditol(chain: Chain) -> bool:
     return chain.is_alditol
 
 
-def _alditol_candidates(chain: Chain) -> list[tuple[str, str, str]]:
-    """(root, series, aldose trivial name) for each reading of ``chain`` as a reduced aldose."""
+def _alditol_readings(chain: Chain) -> list[tuple[tuple[str, ...], str, str, str | None]]:
+    """(prefix words without D/L, D/L letters, aldose systematic name, aldose trivial name) per reading."""
     out = []
     for reading in (chain, chain.reversed()):
         aldose = reading.replace(1, "CHO")
-        trivial = trivial_name(aldose)
-        if trivial is None or chain.carbons < 4:
-            continue
-        series, _, base = trivial.partition("-")
-        out.append((base[:-3], series, systematic_name(aldose)))
+        systematic = systematic_name(aldose)
+        words = systematic.rsplit("-", 1)[0].split("-")
+        prefixes = tuple(w for w in words if w not in ("D", "L"))
+        letters = "".join(w for w in words if w in ("D", "L"))
+        out.append((prefixes, letters, systematic, trivial_name(aldose)))
     return out
 
 
@@ -422,9 +424,11 @@ def alditol_names(chain: Chain) -> tuple[str, str]:
     """(trivial, systematic) name of a parent alditol, IUPAC-IUBMB 2-Carb-19.
 
     An alditol that is the reduction product of two aldoses takes the name
-    first in alphabetical order (D-glucitol, not L-gulitol; D-arabinitol, not
-    D-lyxitol); a meso alditol is named without D/L (galactitol, ribitol).
-    The three-carbon alditol is glycerol.
+    first in alphabetical order of the configurational prefixes (D-glucitol,
+    not L-gulitol; D-arabinitol, not D-lyxitol), then D before L; a meso
+    alditol named by one prefix carries no D/L (galactitol, ribitol). The
+    three-carbon alditol is glycerol. Without a trivial parent the systematic
+    name serves as both (D-glycero-D-gluco-heptitol).
     """
     if not is_alditol(chain):
         raise NameNotRecognisedError(chain.pattern, "not a parent alditol")
@@ -432,14 +436,15 @@ def alditol_names(chain: Chain) -> tuple[str, str]:
         return "glycerol", "glycerol"
     from workbench.chem.smiles import is_achiral, to_smiles
 
-    meso = is_achiral(to_smiles(chain))
-    root, series, systematic = min(_alditol_candidates(chain), key=lambda c: (c[0], c[1]))
-    stem = systematic.rsplit("-", 1)[-1].replace("ose", "itol")
-    prefix = systematic.rsplit("-", 1)[0]
-    if meso:
+    _, letters, systematic, trivial = min(_alditol_readings(chain), key=lambda r: (r[0], r[1]))
+    prefix, stem = systematic.rsplit("-", 1)
+    stem = stem.replace("ose", "itol")
+    if is_achiral(to_smiles(chain)) and len(letters) == 1:
         prefix = prefix[2:]  # drop "D-": the name of a meso compound carries no series
-        return f"{root}itol", f"{prefix}-{stem}"
-    return f"{series}-{root}itol", f"{prefix}-{stem}"
+        name = f"{prefix}-{stem}"
+        return (trivial[2:-3] + "itol" if trivial else name), name
+    name = f"{prefix}-{stem}"
+    return (f"{trivial[:-3]}itol" if trivial else name), name
 
 
 def _alditol_from_name(text: str) -> Chain | None:
