@@ -92,7 +92,7 @@ def test_run_all_record_an_observation_and_the_board_shrinks(lab, browser_page, 
     page.locator(".ss-form button", has_text="Record").first.click()
     page.wait_for_function("document.querySelector('.ss-live').innerText.includes('S1: 2 left')", timeout=60_000)
     # the chosen toggle button stands out: filled with the accent colour
-    chosen = page.locator(".ss-live button.widget-toggle-button.mod-active").first
+    chosen = page.locator(".ss-plan-panel button.widget-toggle-button.mod-active").first  # ranking rule, stable
     assert chosen.evaluate("b => getComputedStyle(b).backgroundColor") == "rgb(47, 111, 98)"
     shot(page, "workbench-recorded")
     assert "S1 (2)" in page.locator(".ss-board-panel .lm-TabBar-tab").first.inner_text()
