@@ -32,7 +32,14 @@ from workbench.evidence.conflicts import conflict_sets
 from workbench.evidence.network import Binary, components, enumerate_solutions, find_solution, supported_domains
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import Verdict, fits, passes, product_key
-from workbench.evidence.posterior import Posterior, joint_posterior, rank_suspects, unary_weights
+from workbench.evidence.posterior import (
+    ENUMERATION_LIMIT,
+    SUSPECT_ENUMERATION_LIMIT,
+    Posterior,
+    joint_posterior,
+    rank_suspects,
+    unary_weights,
+)
 from workbench.evidence.project import Project
 from workbench.evidence.residue_outcomes import Choices, balance_constraints
 
@@ -626,6 +633,7 @@ def _posterior(
     survivors: Mapping[str, Sequence[Chain]],
     scope: dict[str, list[Chain]] | None = None,
     mixed: bool = True,
+    limit: int = ENUMERATION_LIMIT,
 ) -> Posterior:
     """The joint posterior over ``survivors`` (which must be consistent with ``observations``)."""
 
@@ -634,7 +642,7 @@ def _posterior(
     domains.update(_fixed_domains(fixed))
     weights = unary_weights(observations, {u: survivors[u] for u in project.unknown_ids}, mixed)
     sizes = {u: len((scope or _scope_domains(project))[u]) for u in project.unknown_ids}
-    return joint_posterior(domains, weights, constraints, sizes)
+    return joint_posterior(domains, weights, constraints, sizes, limit)
 
 
 def _suspects(project: Project, active: list[Observation], conflicts: list[tuple[str, ...]]) -> list[tuple[str, float]]:
@@ -647,7 +655,7 @@ def _suspects(project: Project, active: list[Observation], conflicts: list[tuple
         alt = _survivors(project, rest)
         if alt is None:
             return None
-        return _posterior(project, rest, alt, scope, mixed=False).log_evidence
+        return _posterior(project, rest, alt, scope, mixed=False, limit=SUSPECT_ENUMERATION_LIMIT).log_evidence
 
     return rank_suspects(candidates, evidence_without)
 

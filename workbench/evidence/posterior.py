@@ -67,6 +67,11 @@ ENUMERATION_LIMIT = 50_000
 PAIR_LIMIT = 4_000_000
 MIN_WRONG = 0.01
 _MAX_DROPPED = 2
+# At most this many drop-one/drop-two hypotheses are weighed when ranking suspects (each is a full
+# re-solve); among many conflicting records the ranking then covers the first ones in project order.
+MAX_SUSPECT_CHECKS = 24
+# Joint assignments enumerated per cyclic group when weighing a suspect hypothesis (beyond: approximate).
+SUSPECT_ENUMERATION_LIMIT = 2_000
 
 Weights = dict[str, dict[Chain, float]]
 
@@ -244,9 +249,13 @@ def _forest(
 
 
 def _enumerated(
-    group: list[str], domains: dict[str, list[Chain]], weights: Weights, constraints: list[Binary]
+    group: list[str],
+    domains: dict[str, list[Chain]],
+    weights: Weights,
+    constraints: list[Binary],
+    limit: int = ENUMERATION_LIMIT,
 ) -> tuple[dict[str, dict[Chain, float]], float, int] | None:
-    worlds = enumerate_solutions({v: domains[v] for v in group}, constraints, ENUMERATION_LIMIT)
+    worlds = enumerate_solutions({v: domains[v] for v in group}, constraints, limit)
     if worlds is None:
         return None
     beliefs: dict[str, dict[Chain, float]] = {v: dict.fromkeys(domains[v], 0.0) for v in group}
@@ -268,8 +277,12 @@ def joint_posterior(
     weights: Weights,
     constraints: Sequence[Binary],
     scope_sizes: dict[str, int],
+    limit: int = ENUMERATION_LIMIT,
 ) -> Posterior:
     """Probabilities of every unknown's survivors, joint over the relations (see the module docstring).
+
+    ``limit`` caps the joint assignments enumerated for a group with a cycle
+    (beyond it the group is ``approximate``).
 
     ``domains`` holds the survivors of every unknown and the one-value
     variables ``=name`` of known sugars; ``weights`` the unary weights of the
@@ -299,7 +312,7 @@ def joint_posterior(
             except _TooLarge:
                 beliefs = None
         else:
-            found = _enumerated(group, domains, full_weights, sub)
+            found = _enumerated(group, domains, full_weights, sub, limit)
             if found is not None:
                 beliefs, log_z, count = found
                 method = f"exact: enumeration of {count} joint assignments"
@@ -345,6 +358,7 @@ def rank_suspects(
         return max(1.0 - o.effective_reliability, MIN_WRONG)
 
     by_id = {o.id: o for o in candidates}
+    checks = 0  # hypotheses tried: each one re-solves the project, so their number is bounded
     log_right = sum(math.log(1 - wrong(o)) for o in candidates)
     hypotheses: list[tuple[frozenset[str], float]] = []
     resolved: list[frozenset[str]] = []
@@ -353,6 +367,9 @@ def rank_suspects(
             dropped = frozenset(combo)
             if any(r <= dropped for r in resolved):
                 continue
+            if checks >= MAX_SUSPECT_CHECKS:
+                break
+            checks += 1
             log_rest = evidence_without(dropped)
             if log_rest is None or log_rest == float("-inf"):
                 continue
