@@ -192,3 +192,18 @@ def test_residue_rows_survive_a_table_file(tmp_path):
     by_residue = {r: vals[c] for r, c in zip(back, codes, strict=True) if c >= 0}
     for r in residues:
         assert by_residue[r] == outcomes.predict(tables._probe(key), r)
+
+
+def test_the_shipped_tables_carry_the_current_rules_and_equal_fresh_predictions():
+    # A changed rule changes the key; then this fails until scripts/build_outcome_tables.py is run again.
+    data = tables._read(tables.SHIPPED)
+    assert data is not None, f"{tables.SHIPPED} is missing or stale: run python scripts/build_outcome_tables.py"
+    shipped = [tables._unspec(spec) for spec in data["chains"]]
+    assert set(catalogue(Scope())) <= set(shipped) and set(catalogue(BROAD)) <= set(shipped)
+    assert set(tables.standard_keys()) <= set(data["columns"])
+    rng = random.Random(5)
+    rows = rng.sample(range(len(shipped)), 25)
+    for key in tables.standard_keys():
+        codes, vals = data["columns"][key]
+        for r in rows:
+            assert _same(vals[codes[r]], _fresh(key, shipped[r])), (key, shipped[r].pattern)
