@@ -203,7 +203,10 @@ def test_the_shipped_tables_carry_the_current_rules_and_equal_fresh_predictions(
     assert set(tables.standard_keys()) <= set(data["columns"])
     rng = random.Random(5)
     rows = rng.sample(range(len(shipped)), 25)
-    for key in tables.standard_keys():
+    for key in data["columns"]:
         codes, vals = data["columns"][key]
         for r in rows:
+            if codes[r] < 0:
+                assert key not in tables.standard_keys(), (key, shipped[r].pattern)  # standard columns are full
+                continue  # a column the planner filled for some candidates only
             assert _same(vals[codes[r]], _fresh(key, shipped[r])), (key, shipped[r].pattern)
