@@ -317,23 +317,27 @@ def supported_domains(domains: Domains, constraints: list[Binary]) -> Domains | 
         if not by_var[var]:
             supported[var] = set(work[var])  # unconstrained: any value joins any solution
             continue
+        dead: set[Chain] = set()
         for value in list(work[var]):
             if value in supported[var] or value not in finder.alive[var]:
                 continue
             if _repairs(var, value, witnesses, by_var[var], supported):
                 continue
-            sol = finder.find(var, value)
+            sol = finder.find(var, value)  # ``var`` is fixed, so its own dead values do not matter here
             if sol is None:
-                # No solution holds ``value``: drop it and restore arc consistency from ``var``, so that
-                # the domains stay arc consistent (what the cutset search needs) and smaller.
-                work[var] = [x for x in work[var] if x != value]
-                if not arc_consistent(work, constraints, changed=var, by_var=by_var):
-                    return None
-                finder.sync()
+                dead.add(value)
                 continue
             witnesses.append(sol)
             for v, val in sol.items():
                 supported[v].add(val)
+        if dead:
+            # No solution holds these values: drop them together and restore arc consistency from ``var``
+            # once, so that the other variables' domains stay arc consistent (what the cutset search
+            # needs) and smaller.
+            work[var] = [x for x in work[var] if x not in dead]
+            if not arc_consistent(work, constraints, changed=var, by_var=by_var):
+                return None
+            finder.sync()
     return {v: [x for x in work[v] if x in supported[v]] for v in work}
 
 
