@@ -133,15 +133,19 @@ def test_a_saved_notebook_opened_untrusted_reads(lab, lab_root, browser_page):
     page = browser_page
     page.goto(f"{lab}/lab/tree/received.ipynb")
     page.wait_for_selector(".jp-Notebook .ss-fischer-text", state="attached", timeout=90_000)
+    # JupyterLab renders outputs as they come into view: wait for the cards rather than count at once
+    page.wait_for_function(
+        "document.querySelectorAll('.jp-OutputArea-output .ss-fischer-text').length >= 3", timeout=60_000
+    )
     cards = page.locator(".jp-OutputArea-output .ss-fischer-text")
-    assert cards.count() >= 3
     first = cards.first
     first.scroll_into_view_if_needed()
-    assert first.is_visible() and "──┼──" in first.inner_text() and "CHO" in first.inner_text()
+    first.wait_for(state="visible", timeout=30_000)
+    assert "──┼──" in first.inner_text() and "CHO" in first.inner_text()
     assert len(first.inner_text().splitlines()) >= 11  # drawn line by line, not run-on text
     saved = page.locator(".ss-snapshot").first
     saved.scroll_into_view_if_needed()
-    assert saved.is_visible()
+    saved.wait_for(state="visible", timeout=30_000)
     shot(page, "untrusted-saved-view")
     text = page.locator(".jp-Notebook").first.inner_text()
     for repr_text in _REPRS:
