@@ -490,14 +490,10 @@ def keep(obs: Any, chains: Sequence[Chain], verdict: Callable[[Any, Chain], Any]
     distinct calibrated estimate). Returns None when the observation has no
     column (the caller then judges every chain).
     """
-    key = _judged_by(obs)
-    if key is None or not chains:
+    judged = verdicts(obs, chains, verdict)
+    if judged is None:
         return None
-    got, _ = _STORE.codes(key, chains)
-    uniq, first = np.unique(got, return_index=True)
-    ok_codes = [code for code, i in zip(uniq.tolist(), first.tolist(), strict=True) if verdict(obs, chains[i]).fits]
-    mask = np.isin(got, ok_codes)
-    return [chains[i] for i in np.flatnonzero(mask).tolist()]
+    return [c for c, v in zip(chains, judged, strict=True) if v.fits]
 
 
 def verdicts(obs: Any, chains: Sequence[Chain], verdict: Callable[[Any, Chain], Any]) -> list[Any] | None:
