@@ -74,28 +74,24 @@ def merge_projects(first: Any, second: Any, names: tuple[str, str] = ("the first
     clashes: list[Clash] = []
     shared: list[str] = []
     added: list[str] = []
-    unknowns = list(a.unknowns)
-    by_id = {u.id: u for u in a.unknowns}
-    for u in b.unknowns:
-        mine = by_id.get(u.id)
-        if mine is None:
-            unknowns.append(u)
-            added.append(u.id)
-        elif mine == u:
-            shared.append(u.id)
-        else:
-            clashes.append(Clash("unknown", u.id, _fields(mine.to_dict(), u.to_dict(), *names)))
-    observations = list(a.observations)
-    seen = {o.id: o for o in a.observations}
-    for o in b.observations:
-        mine_obs = seen.get(o.id)
-        if mine_obs is None:
-            observations.append(o)
-            added.append(o.id)
-        elif mine_obs == o:
-            shared.append(o.id)
-        else:
-            clashes.append(Clash("observation", o.id, _fields(mine_obs.to_dict(), o.to_dict(), *names)))
+
+    def union(what: str, mine: tuple, theirs: tuple) -> list:
+        """Entries of ``mine``, then those of ``theirs`` with a new id; equal ids must hold equal content."""
+        out = list(mine)
+        by_id = {e.id: e for e in mine}
+        for entry in theirs:
+            known = by_id.get(entry.id)
+            if known is None:
+                out.append(entry)
+                added.append(entry.id)
+            elif known == entry:
+                shared.append(entry.id)
+            else:
+                clashes.append(Clash(what, entry.id, _fields(known.to_dict(), entry.to_dict(), *names)))
+        return out
+
+    unknowns = union("unknown", a.unknowns, b.unknowns)
+    observations = union("observation", a.observations, b.observations)
     if clashes:
         raise MergeError(names[0], names[1], clashes)
     notes = []
