@@ -24,20 +24,21 @@ from workbench.report import render_report
 MARKUP = '<img src=x onerror="alert(1)">'
 ESCAPES = "\x1b]0;owned\x07\x1b[2J\x9b31m\u202e"
 HOSTILE = MARKUP + ESCAPES
+UID = "U<b>&amp;"  # ids may hold markup characters (shown as text) but no control characters (refused)
 
 
 def _project(contradictory: bool = False) -> dict:
     obs = [
-        {"id": MARKUP, "kind": "carbon_count", "unknown": "U" + ESCAPES, "value": 6, "note": HOSTILE, "by": HOSTILE},
-        {"id": "E2" + ESCAPES, "kind": "series", "unknown": "U" + ESCAPES, "value": "D", "note": HOSTILE},
+        {"id": MARKUP, "kind": "carbon_count", "unknown": UID, "value": 6, "note": HOSTILE, "by": HOSTILE},
+        {"id": "E2</td><script>", "kind": "series", "unknown": UID, "value": "D", "note": HOSTILE},
     ]
     if contradictory:
-        obs.append({"id": "E3" + MARKUP, "kind": "carbon_count", "unknown": "U" + ESCAPES, "value": 5})
+        obs.append({"id": "E3" + MARKUP, "kind": "carbon_count", "unknown": UID, "value": 5})
     return {
         "format": "stereosieve-project",
         "version": 1,
         "title": HOSTILE,
-        "unknowns": [{"id": "U" + ESCAPES, "label": HOSTILE, "scope": {"carbons": [5, 6]}}],
+        "unknowns": [{"id": UID, "label": HOSTILE, "scope": {"carbons": [5, 6]}}],
         "observations": obs,
     }
 
@@ -118,6 +119,35 @@ def test_json_output_stays_valid_and_keeps_the_text(tmp_path, capsys, argv):
     data = json.loads(out)  # the escapes decode back to the original text
     if argv[0] == "solve":
         assert data["title"] == HOSTILE
+
+
+@pytest.mark.parametrize("bad", ["E1\nE1b", "E1\x1b[2J", "E1\u2028x", "E1\u202e", "E1\tx"])
+@pytest.mark.parametrize("where", ["observation", "unknown"])
+def test_ids_with_control_characters_are_refused(tmp_path, capsys, bad, where):
+    """An id is one line: a newline or escape in it could forge lines of the terminal output."""
+    data = _project()
+    if where == "observation":
+        data["observations"][1]["id"] = bad
+    else:
+        data["unknowns"][0]["id"] = bad
+        for o in data["observations"]:
+            o["unknown"] = bad
+    path = tmp_path / "p.json"
+    path.write_text(json.dumps(data), encoding="utf-8")
+    assert main(["solve", str(path)]) == 2
+    out, err = capsys.readouterr()
+    assert "field 'id'" in err and "control characters" in err
+    assert bad not in err and "\n" not in out
+
+
+def test_a_title_with_a_newline_stays_on_one_line(tmp_path, capsys):
+    data = _project()
+    data["title"] = "Batch 7\nAll checks passed"
+    path = tmp_path / "p.json"
+    path.write_text(json.dumps(data), encoding="utf-8")
+    assert main(["solve", str(path)]) == 0
+    out, _ = capsys.readouterr()
+    assert "Project: Batch 7\\x0aAll checks passed" in out.splitlines()
 
 
 def test_the_helpers_one_by_one():

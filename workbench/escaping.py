@@ -21,12 +21,13 @@ from __future__ import annotations
 import html
 import re
 
-__all__ = ["html_text", "terminal_text", "json_text"]
+__all__ = ["html_text", "terminal_text", "json_text", "line_breaker"]
 
 _BIDI = "\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069"
 _UNSAFE_TERMINAL = re.compile(f"[\x00-\x08\x0b-\x1f\x7f-\x9f{_BIDI}\ud800-\udfff]")
 _UNSAFE_ONE_LINE = re.compile(f"[\x00-\x1f\x7f-\x9f{_BIDI}\ud800-\udfff]")
 _UNSAFE_HTML = re.compile(f"[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f{_BIDI}\ud800-\udfff]")
+_SEPARATORS = re.compile("[\u2028\u2029]")
 _UNSAFE_JSON = re.compile(f"[\x7f-\x9f{_BIDI}\ud800-\udfff]")
 
 
@@ -38,6 +39,17 @@ def _visible(match: re.Match[str]) -> str:
 def terminal_text(value: object, one_line: bool = False) -> str:
     """``str(value)`` with every control, escape and bidi character shown as a visible escape."""
     return (_UNSAFE_ONE_LINE if one_line else _UNSAFE_TERMINAL).sub(_visible, str(value))
+
+
+def line_breaker(text: str) -> str | None:
+    """The first character of ``text`` that a one-line field (an id) may not hold, shown as an escape.
+
+    Control characters (newline and tab too), DEL, C1 controls, bidirectional
+    controls, lone surrogates and the line and paragraph separators
+    U+2028/U+2029; None when there is none.
+    """
+    found = _UNSAFE_ONE_LINE.search(text) or _SEPARATORS.search(text)
+    return None if found is None else _visible(found)
 
 
 def html_text(value: object) -> str:

@@ -10,6 +10,7 @@ from workbench.chem.chain import Chain
 from workbench.chem.names import display_name, systematic_name
 from workbench.chem.smiles import to_inchikey, to_smiles
 from workbench.chem.symbols import symbol
+from workbench.escaping import terminal_text
 from workbench.glossary import observation_text
 
 __all__ = ["identity_json", "predict_json", "predict_text", "compound_text", "probability_bar"]
@@ -218,7 +219,7 @@ def solution_text(solution) -> str:
     """A readable table per unknown with the trail, for the terminal."""
     project = solution.project
     ids = project.unknown_ids
-    lines = [f"Project: {project.title or '(untitled)'}", ""]
+    lines = [f"Project: {terminal_text(project.title or '(untitled)', one_line=True)}", ""]
     header = f"{'step':<8}{'status':<13}" + "".join(f"{u:>8}" for u in ids)
     lines.append("Narrowing (candidates left per unknown)")
     lines.append(header)
@@ -239,7 +240,7 @@ def solution_text(solution) -> str:
     for uid in ids:
         u = project.unknown(uid)
         surv = solution.survivors[uid]
-        label = f" ({u.label})" if u.label else ""
+        label = f" ({terminal_text(u.label, one_line=True)})" if u.label else ""
         entropy = solution.entropy.get(uid)
         spread = f", entropy {entropy:.2f} bits" if entropy is not None and surv else ""
         lines.append(f"{uid}{label}: {len(surv)} of {solution.scope_counts[uid]} candidates remain{spread}")

@@ -566,7 +566,11 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
         else:
             new_cons, new_fixed = constraints_of(project, obs)
         domains.update(_fixed_domains({**fixed, **new_fixed}))
-        result = None if any(not d for d in domains.values()) else supported_domains(domains, constraints + new_cons)
+        # `current` holds supported (so arc-consistent) domains of `constraints`: only what this
+        # observation touches needs propagating.
+        touched = {obs.unknown} if obs.UNARY else {v for c in new_cons for v in (c.a, c.b)} | set(new_fixed)
+        empty = any(not d for d in domains.values())
+        result = None if empty else supported_domains(domains, constraints + new_cons, around=touched)
         trial = None if result is None else {k: tuple(v) for k, v in result.items() if not k.startswith("=")}
         if trial is None:
             trail.append(TrailStep(obs.id, "contradicts", {}, {u: len(current[u]) for u in current}))
@@ -616,7 +620,7 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
         trail=tuple(trail),
         conflicts=tuple(conflicts),
         relief=relief,
-        flags={u: {c: tuple(v) for c, v in d.items() if c in set(final[u])} for u, d in flags.items()},
+        flags=_final_flags(flags, final),
         disabled=off,
         probabilities=post.probabilities if post else {},
         entropy=post.entropy if post else {},
@@ -624,6 +628,17 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
         weights=post.weights if post else {},
         suspects=tuple(suspects),
     )
+
+
+def _final_flags(
+    flags: dict[str, dict[Chain, list[str]]], final: Mapping[str, Sequence[Chain]]
+) -> dict[str, dict[Chain, tuple[str, ...]]]:
+    """The flags of the final survivors only (one set per unknown, not one per flag)."""
+    out: dict[str, dict[Chain, tuple[str, ...]]] = {}
+    for u, d in flags.items():
+        alive = set(final[u])
+        out[u] = {c: tuple(v) for c, v in d.items() if c in alive}
+    return out
 
 
 # ------------------------------------------------------------------ probabilities (evidence/posterior.py)

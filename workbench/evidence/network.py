@@ -95,18 +95,25 @@ def arc_consistent(
     constraints: list[Binary],
     changed: str | None = None,
     by_var: dict[str, list[Binary]] | None = None,
+    around: Iterable[str] | None = None,
 ) -> bool:
     """AC-3 in place; False when a domain becomes empty.
 
     With ``changed``, the domains are taken to be arc consistent already
     except for the variable ``changed`` (just narrowed), so only the arcs
-    pointing at it are revised first.
+    pointing at it are revised first. With ``around``, they are taken to be
+    arc consistent on every constraint between two variables outside
+    ``around`` (narrowed variables, ends of new constraints), so only the
+    constraints touching ``around`` are revised first, both ways.
     """
     by_var = _by_var(constraints) if by_var is None else by_var
-    if changed is None:
-        queue = [(c.a, c) for c in constraints] + [(c.b, c) for c in constraints]
-    else:
+    if changed is not None:
         queue = [(c.other(changed), c) for c in by_var[changed]]
+    elif around is not None:
+        touching = {id(c): c for v in around for c in by_var.get(v, ())}
+        queue = [(c.a, c) for c in touching.values()] + [(c.b, c) for c in touching.values()]
+    else:
+        queue = [(c.a, c) for c in constraints] + [(c.b, c) for c in constraints]
     queued = set((v, id(c)) for v, c in queue)
     while queue:
         var, c = queue.pop()
@@ -256,8 +263,13 @@ def _merge(constraints: list[Binary]) -> list[Binary]:
     return merged
 
 
-def _condition_on_singletons(domains: Domains, constraints: list[Binary]) -> list[Binary] | None:
-    """Fold constraints touching a one-value variable into filters on the other end (exact)."""
+def _condition_on_singletons(
+    domains: Domains, constraints: list[Binary], narrowed: set[str]
+) -> list[Binary] | None:
+    """Fold constraints touching a one-value variable into filters on the other end (exact).
+
+    Variables whose domains the folding narrows are added to ``narrowed``.
+    """
     remaining = list(constraints)
     changed = True
     while changed:
@@ -266,12 +278,14 @@ def _condition_on_singletons(domains: Domains, constraints: list[Binary]) -> lis
         for c in remaining:
             da, db = domains[c.a], domains[c.b]
             if len(da) == 1 or len(db) == 1:
+                before = len(da), len(db)
                 if len(da) == 1:
                     domains[c.b] = [y for y in db if c.test(da[0], y)]
                 if len(domains[c.b]) == 1 or len(db) == 1:
                     domains[c.a] = [x for x in domains[c.a] if any(c.test(x, y) for y in domains[c.b])]
                 if not domains[c.a] or not domains[c.b]:
                     return None
+                narrowed.update(v for v, n in zip((c.a, c.b), before, strict=True) if len(domains[v]) != n)
                 changed = True
                 continue
             kept.append(c)
@@ -285,31 +299,60 @@ def _is_forest(variables: Iterable[str], constraints: list[Binary]) -> bool:
     return len(constraints) == len(names) - len(components(names, constraints))
 
 
-def supported_domains(domains: Domains, constraints: list[Binary]) -> Domains | None:
+def supported_domains(
+    domains: Domains, constraints: list[Binary], around: Iterable[str] | None = None
+) -> Domains | None:
     """Exactly the values of each variable that belong to some solution; None if none exists.
 
     Parallel constraints are merged and one-value variables folded in; if the
     remaining constraint graph is a forest, arc consistency alone is exact
     (Freuder, J. ACM 29, 24, 1982); otherwise every value is confirmed by a
     witness solution.
+
+    ``around`` is a promise of the caller that the domains are arc consistent
+    on every constraint between variables outside it (for instance supported
+    domains of the same network, then one variable narrowed or one relation
+    added, ``around`` naming the narrowed variable or the relation's ends):
+    arc consistency then starts from those variables only, so a project
+    replayed one observation at a time costs no pass over every constraint
+    per observation.
     """
     work = {v: list(d) for v, d in domains.items()}
     constraints = _merge(constraints)
-    if not arc_consistent(work, constraints):
+    by_var = _by_var(constraints)
+    if not arc_consistent(work, constraints, by_var=by_var, around=around):
         return None
-    reduced = _condition_on_singletons(work, constraints)
-    if reduced is None or not arc_consistent(work, reduced):
+    narrowed: set[str] = set()
+    reduced = _condition_on_singletons(work, constraints, narrowed)
+    if reduced is None:
+        return None
+    if narrowed and not arc_consistent(work, reduced, around=narrowed):
         return None
     constraints = reduced
     if _is_forest(work, constraints):
         return work
+    # Only the cyclic core needs witnesses. The rest hangs off it in trees, each joined to the core
+    # at one variable at most, so once the core's domains are exact, arc consistency makes the
+    # trees' domains exact as well (the forest argument applied to each tree from its root); and
+    # with arc-consistent trees, every solution of the core alone extends to the whole network.
+    by_var = _by_var(constraints)
+    core = _cyclic_core(work, by_var)
+    sub = {v: work[v] for v in work if v in core}
+    exact = _witnessed(sub, [c for c in constraints if c.a in core and c.b in core])
+    if exact is None:
+        return None
+    work.update(exact)
+    if not arc_consistent(work, constraints, by_var=by_var, around=core):
+        return None
+    return work
+
+
+def _witnessed(work: Domains, constraints: list[Binary]) -> Domains | None:
+    """Supported values of an arc-consistent network, each confirmed by a witness solution."""
     first = _search({v: list(d) for v, d in work.items()}, constraints)
     if first is None:
         return None
-    by_var: dict[str, list[Binary]] = defaultdict(list)
-    for c in constraints:
-        by_var[c.a].append(c)
-        by_var[c.b].append(c)
+    by_var = _by_var(constraints)
     finder = _WitnessFinder(work, constraints, by_var)
     witnesses = [first]
     supported: dict[str, set[Chain]] = {v: {first[v]} for v in work}

@@ -25,6 +25,7 @@ from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any, ClassVar
 
 from workbench.errors import ObservationError
+from workbench.escaping import line_breaker
 from workbench.inputs import show
 
 __all__ = [
@@ -522,6 +523,11 @@ def observation_from_dict(data: Mapping[str, Any]) -> Observation:
     if not isinstance(oid, str) or not oid.strip():
         raise ObservationError(None, "id", f"every observation needs a text id, got {show(oid)}")
     oid = oid.strip()
+    bad = line_breaker(oid)
+    if bad is not None:
+        raise ObservationError(
+            None, "id", f"an id is one line of text without control characters; {show(oid)} holds {bad}"
+        )
     kind = data.get("kind")
     if not isinstance(kind, str):
         raise ObservationError(oid, "kind", f"expected a kind word such as 'series', got {show(kind)}")

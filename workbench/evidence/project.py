@@ -21,6 +21,7 @@ from workbench.chem.chain import Chain
 from workbench.chem.parse import resolve
 from workbench.chem.residue import DEFAULT_RESIDUE_SCOPE, ResidueScope
 from workbench.errors import NameNotRecognisedError, ObservationError, ProjectError, ScopeError
+from workbench.escaping import line_breaker
 from workbench.evidence.observations import Observation, observation_from_dict
 from workbench.files import write_text_atomic
 from workbench.inputs import check_tree, read_project_json, show
@@ -149,6 +150,10 @@ def _unknown_from(data: Any, index: int, problems: list[str]) -> Unknown | None:
     uid = data.get("id")
     if not isinstance(uid, str) or not uid.strip():
         problems.append(f"{where}: field 'id' must be a non-empty text, got {show(uid)}")
+        return None
+    bad = line_breaker(uid)
+    if bad is not None:
+        problems.append(f"{where}: field 'id' must be one line without control characters; {show(uid)} holds {bad}")
         return None
     extra = sorted(set(data) - {"id", "label", "scope", "type"})
     if extra:

@@ -30,9 +30,14 @@ SCHEMA_ID = "urn:stereosieve:project-file"
 # ISO 8601 as the project file uses it: a date, optionally a time and a zone ("2025-01-20", "2025-01-20T14:05Z").
 _ISO_8601 = r"^\d{4}-\d{2}-\d{2}([T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}(:?\d{2})?)?)?$"
 _TEXT = {"type": "string", "pattern": r"\S"}
+# An id is one line: no C0/C1 controls, DEL, bidirectional controls or line separators (escaping.line_breaker).
+_ID = {
+    "type": "string",
+    "pattern": r"^(?=.*\S)[^\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069\u2028\u2029]+$",
+}
 
 _COMMON_FIELDS: dict[str, dict[str, Any]] = {
-    "id": {**_TEXT, "description": "unique id of the observation, e.g. E1"},
+    "id": {**_ID, "description": "unique id of the observation, e.g. E1"},
     "kind": {"type": "string", "description": "the kind of evidence (one of the kinds below)"},
     "note": {"type": "string", "description": "free text"},
     "recorded": {"type": "string", "pattern": _ISO_8601, "description": "when it was recorded (ISO 8601)"},
@@ -174,7 +179,7 @@ def _unknown_schema() -> dict[str, Any]:
         if not f.init or not f.compare:
             continue
         if f.name == "id":
-            properties["id"] = {**_TEXT, "description": "unique id of the unknown, e.g. U1"}
+            properties["id"] = {**_ID, "description": "unique id of the unknown, e.g. U1"}
         elif f.name == "label":
             properties["label"] = {"type": "string", "description": "free text"}
         elif f.name == "scope":
