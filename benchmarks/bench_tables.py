@@ -4,7 +4,7 @@ Run: ``python benchmarks/bench_tables.py``. Prints, each as a ratio measured in
 this one run:
 
 1. cold ``solve`` and cold ``plan`` over the broadest scope (C3-C9, every
-   modification: 3,828 candidates, one observation), each in a fresh process
+   modification: 4,336 candidates, one observation), each in a fresh process
    (``python -m workbench.cli``), with the tables as shipped and the disk cache
    (a) empty and (b) filled by an earlier run;
 2. a warm evidence change over that scope (switching an observation off and on,
@@ -72,7 +72,7 @@ def cold_commands(path: Path) -> None:
         solves = [_run(["solve", str(path)], env) for _ in range(3)]
         plans = [_run(["plan", str(path)], env) for _ in range(3)]
     s, p = statistics.median(solves), statistics.median(plans)
-    print("1. cold commands over the broadest scope (3,828 candidates), fresh processes, CPU seconds")
+    print("1. cold commands over the broadest scope (4,336 candidates), fresh processes, CPU seconds")
     print(
         f"   empty disk cache:  solve {first_solve:.2f} s, plan {first_plan:.2f} s, ratio {first_plan / first_solve:.1f}x"
     )

@@ -19,7 +19,8 @@ Modification words:
   candidates are then those sugars, filtered by carbons, carbonyl and series.
 - ``any``: none; every single deoxy position; every deoxy pair that includes
   the terminal carbon (2,6- and 3,6-dideoxyhexoses and their kin); amino:2 and
-  amino:2 with terminal deoxy (aldoses); uronic (aldoses of 4+ carbons).
+  acetamido:2, each also with terminal deoxy (aldoses); uronic (aldoses of 4+
+  carbons).
 """
 
 from __future__ import annotations
@@ -159,6 +160,8 @@ def _any_variants(carbons: int, carbonyl: str) -> list[Modification]:
     out += [Modification(frozenset({k, n})) for k in singles if k not in (1, n)]
     if carbonyl == "aldose":
         out += [Modification(amino=frozenset({2})), Modification(frozenset({n}), frozenset({2}))]
+        # N-acetyl: the form in which amino sugars occur in nature (GlcNAc, GalNAc, ManNAc; FucNAc, QuiNAc)
+        out += [Modification(acetamido=frozenset({2})), Modification(frozenset({n}), acetamido=frozenset({2}))]
         out.append(Modification(uronic=True))
     return [m for m in out if m.template(n, carbonyl) is not None]
 

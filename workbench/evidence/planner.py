@@ -313,9 +313,17 @@ def _unary_outcomes(kind: str, params: dict, survivors: Sequence[Chain]) -> list
 
 
 def _coupling_pairs(survivors: Sequence[Chain], form: str) -> list[str]:
-    """Proton pairs with a predicted coupling in ``form`` for any survivor (ring order)."""
+    """Proton pairs with a predicted coupling in ``form`` for any survivor (ring order).
+
+    Which protons a ring carries depends on the constitution only (a deoxy
+    carbon has two, an H2ax and an H2eq), so one survivor per constitution is
+    read (at most 64 constitutions), not the first survivors of the list.
+    """
     seen: dict[str, None] = {}
-    for pairs in tables.values(f"derived|coupling_pairs_{form}", survivors[:64]):
+    one_each: dict[tuple[str, ...], Chain] = {}
+    for c in survivors:
+        one_each.setdefault(c.groups, c)
+    for pairs in tables.values(f"derived|coupling_pairs_{form}", list(one_each.values())[:64]):
         for pair in pairs:
             seen.setdefault(pair, None)
     return list(seen)
