@@ -121,3 +121,18 @@ def test_nothing_saved_is_touched_by_a_refused_file(tmp_path, capsys):
     main(["solve", str(path)])
     assert path.read_text(encoding="utf-8") == text
     assert sys.getrecursionlimit() >= 1000
+
+
+@pytest.mark.parametrize(
+    "argv",
+    [
+        ["predict", "6-de\udcffoxy-L-galactose"],
+        ["predict", "--json", "OC[C@H]1OC(O)[C@H](O)[C@@H](\udc80)[C@@H]1O"],
+        ["catalogue", "--modifications", "deoxy:\udc80"],
+    ],
+)
+def test_text_arguments_that_are_not_utf8_are_refused(argv, capsys):
+    """A terminal passing bytes that are not UTF-8 (kept by Python as lone surrogates) gets exit 2 and words."""
+    assert main(argv) == 2
+    err = capsys.readouterr().err
+    assert "not valid UTF-8" in err and "Traceback" not in err

@@ -409,6 +409,21 @@ def _port(text: str) -> int:
     return port
 
 
+# Arguments read as text (names, ids, modification words), not as file paths: a path may hold any
+# bytes the file system allows, text must be valid Unicode.
+_TEXT_ARGUMENTS = ("sugar", "modifications", "without", "unknown")
+
+
+def _garbled_text_argument(args: argparse.Namespace) -> str:
+    """A message if a text argument holds bytes that are not UTF-8 (Python keeps them as lone surrogates)."""
+    for dest in _TEXT_ARGUMENTS:
+        value = getattr(args, dest, None)
+        for text in [value] if isinstance(value, str) else value or ():
+            if isinstance(text, str) and any("\ud800" <= ch <= "\udfff" for ch in text):
+                return f"argument '{dest}' is not valid UTF-8 text: {terminal_text(text, one_line=True)}"
+    return ""
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the console script; returns the exit code."""
     parser = build_parser()
@@ -427,6 +442,10 @@ def main(argv: Sequence[str] | None = None) -> int:
         )
         return EXIT_BAD_INPUT
     args.passthrough = passthrough
+    garbled = _garbled_text_argument(args)
+    if garbled:
+        _warn(f"{args.command}: {garbled}")
+        return EXIT_BAD_INPUT
     try:
         return _HANDLERS[args.command](args)
     except BrokenPipeError:  # output piped into `head` and closed early: not an error of the input
