@@ -271,6 +271,26 @@ def test_joint_probabilities_equal_brute_force_enumeration(cyclic):
     assert ("enumeration" in method) if cyclic else ("sum-product" in method)
 
 
+def test_a_cycle_with_trees_hanging_off_it_is_summed_exactly():
+    """Enumeration on the cycle A-B-C, sum-product on the tail C-D-E, against brute-force enumeration."""
+    base = _linked([{"id": "R3", "kind": "different", "members": ["A", "C"]}]).to_dict()
+    scope = base["unknowns"][0]["scope"]
+    base["unknowns"] += [{"id": "D", "scope": scope}, {"id": "E", "scope": {**scope, "carbonyl": ["aldose"]}}]
+    base["observations"] += [
+        {"id": "R4", "kind": "same_product", "reaction": "alditol", "members": ["C", "D"], "relation": "different"},
+        {"id": "Q4", "kind": "anomer_ratio", "unknown": "D", "alpha_fraction": 0.6, "reliability": 0.8},
+        {"id": "R5", "kind": "same_product", "reaction": "osazone", "members": ["D", "E"], "relation": "identical"},
+        {"id": "Q5", "kind": "specific_rotation", "unknown": "E", "value": 20.0, "reliability": 0.7},
+    ]
+    project = project_from_dict(base)
+    solution = solve(project)
+    expected = _brute_force(project)
+    for u in project.unknown_ids:
+        for chain, p in expected[u].items():
+            assert solution.probability(u, chain) == pytest.approx(p, abs=1e-9), (u, display_name(chain))
+    assert "3 unknowns on cycles" in solution.posterior_methods["E"]
+
+
 def test_suspects_name_the_unreliable_record_first():
     # D-glucose-type evidence (common practice: glucose is oxidised by bromine water and has an optically
     # active aldaric acid) plus a record marked doubtful that contradicts it

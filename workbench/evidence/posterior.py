@@ -18,8 +18,9 @@ relation are one-value variables of the group):
   message is a sum over the partner's candidates, found through the
   relation's product index (identity of products, parent/child of a chain
   extension or shortening) so it costs about the number of matching pairs;
-- relations with a cycle: exact enumeration of the joint assignments, up
-  to :data:`ENUMERATION_LIMIT`;
+- relations with a cycle: exact enumeration of the joint assignments of
+  the unknowns on cycles (the 2-core), up to :data:`ENUMERATION_LIMIT`,
+  with sum-product for the trees that hang off them;
 - a joint space above that limit, or a relation without an index between
   two domains whose product exceeds :data:`PAIR_LIMIT`: the unknowns of the
   group keep their own weights (every survivor already belongs to some
@@ -272,6 +273,111 @@ def _enumerated(
     return beliefs, math.log(total), len(worlds)
 
 
+def _two_core(group: list[str], edges: list[_Edge]) -> set[str]:
+    """Variables on or between cycles: leaves peeled off until none is left (the graph's 2-core)."""
+    degree = {v: 0 for v in group}
+    nbrs: dict[str, list[str]] = defaultdict(list)
+    for e in edges:
+        degree[e.a] += 1
+        degree[e.b] += 1
+        nbrs[e.a].append(e.b)
+        nbrs[e.b].append(e.a)
+    core = set(group)
+    stack = [v for v, k in degree.items() if k <= 1]
+    while stack:
+        v = stack.pop()
+        if v not in core:
+            continue
+        core.discard(v)
+        for u in nbrs[v]:
+            if u in core:
+                degree[u] -= 1
+                if degree[u] <= 1:
+                    stack.append(u)
+    return core
+
+
+def _core_and_trees(
+    group: list[str],
+    domains: dict[str, list[Chain]],
+    weights: Weights,
+    constraints: list[Binary],
+    edges: list[_Edge],
+    limit: int,
+) -> tuple[dict[str, dict[Chain, float]], float, int, int] | None:
+    """Exact marginals and log Z of a group with cycles: enumeration on its cycles, sum-product on the rest.
+
+    The variables off the 2-core hang in trees, each joined to the core at one
+    variable. Their messages (leaves inward, as in :func:`_forest`) become
+    extra weights of the core variables they join; the joint assignments of
+    the core alone are then enumerated (at most ``limit``), and messages go
+    back out into the trees from the core marginals. Exact: conditioning on
+    the core leaves a forest (Pearl's cutset conditioning, *Probabilistic
+    Reasoning in Intelligent Systems*, 1988, ch. 4.3). Returns
+    ``(beliefs, log Z, core assignments, core size)`` or None above the limit.
+    """
+    core = _two_core(group, edges)
+    nbrs: dict[str, list[_Edge]] = defaultdict(list)
+    for e in edges:
+        nbrs[e.a].append(e)
+        nbrs[e.b].append(e)
+    parent: dict[str, tuple[str, _Edge]] = {}
+    order: list[str] = []  # tree variables, nearest the core first
+    queue = deque(sorted(core, key=group.index))
+    seen = set(core)
+    while queue:
+        v = queue.popleft()
+        for e in nbrs[v]:
+            u = e.other(v)
+            if u not in seen:
+                seen.add(u)
+                parent[u] = (v, e)
+                order.append(u)
+                queue.append(u)
+    msgs: dict[tuple[str, str], dict[Chain, float]] = {}
+    log_scale = 0.0
+
+    def belief(v: str, skip: str | None) -> dict[Chain, float]:
+        b = dict(weights[v])
+        for e in nbrs[v]:
+            u = e.other(v)
+            if u == skip or (u, v) not in msgs:
+                continue
+            m = msgs[(u, v)]
+            for x in b:
+                b[x] *= m.get(x, 0.0)
+        return b
+
+    for v in reversed(order):  # the trees, leaves inward to the core
+        p, e = parent[v]
+        m, scale = _normalised(_message(e, v, belief(v, p), domains[p]))
+        if scale <= 0:
+            return {}, float("-inf"), 0, len(core)
+        msgs[(v, p)] = m
+        log_scale += math.log(scale)
+    inner = {v: belief(v, None) for v in core}  # weights times the messages of the trees they carry
+    members = [v for v in group if v in core]
+    found = _enumerated(members, domains, inner, [c for c in constraints if c.a in core and c.b in core], limit)
+    if found is None:
+        return None
+    beliefs, log_z, count = found
+    if log_z == float("-inf"):
+        return {}, log_z, count, len(core)
+    for v in order:  # back out into the trees
+        p, e = parent[v]
+        if p in core:
+            # the core marginal without this tree's message (where the message is 0, so is every
+            # belief it reaches on the tree side: the value used there does not matter)
+            up = msgs[(v, p)]
+            rest = {x: (bx / up[x] if up.get(x, 0.0) > 0 else 0.0) for x, bx in beliefs[p].items()}
+        else:
+            rest = belief(p, v)
+        msgs[(p, v)], _ = _normalised(_message(e, p, rest, domains[v]))
+    for v in order:
+        beliefs[v] = belief(v, None)
+    return beliefs, log_scale + log_z, count, len(core)
+
+
 def joint_posterior(
     domains: dict[str, list[Chain]],
     weights: Weights,
@@ -312,10 +418,15 @@ def joint_posterior(
             except _TooLarge:
                 beliefs = None
         else:
-            found = _enumerated(group, domains, full_weights, sub, limit)
+            try:
+                found = _core_and_trees(group, domains, full_weights, sub, edges, limit)
+            except _TooLarge:
+                found = None
             if found is not None:
-                beliefs, log_z, count = found
+                beliefs, log_z, count, cyclic = found
                 method = f"exact: enumeration of {count} joint assignments"
+                if cyclic < len(group):
+                    method += f" of the {cyclic} unknowns on cycles, sum-product on the rest"
         if beliefs is None:
             beliefs = {v: dict(full_weights[v]) for v in group}
             log_z = sum(math.log(max(sum(b.values()), 1e-300)) for b in beliefs.values())
