@@ -149,10 +149,13 @@ def _keys_by_name() -> dict[str, frozenset[str]]:
         if name[:2] in ("D-", "L-"):
             out.setdefault(name[2:].lower(), set()).add(smiles)
     out["ethane-1,2-diol"] = out["ethylene glycol"]
-    for flat, (achiral, chiral) in _NAMES.items():  # deoxy polyols such as propane-1,2-diol, any configuration
+    # deoxy polyols such as propane-1,2-diol, any configuration; a word that already names a configured
+    # polyol keeps only its configuration (erythritol is never a threitol, REFERENCE_VALUES.md, Smith fragments)
+    configured = set(out)
+    for flat, (achiral, chiral) in _NAMES.items():
         mol = Chem.MolFromSmiles(flat)
         if all(a.GetAtomicNum() in (6, 8) for a in mol.GetAtoms()) and "=" not in flat and "O" in flat:
-            for word in {achiral, chiral} - {""}:
+            for word in {achiral, chiral} - {""} - configured:
                 out.setdefault(word.lower(), set()).add(flat)
     return {k: frozenset(v) for k, v in out.items()}
 

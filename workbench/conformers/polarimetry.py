@@ -10,7 +10,11 @@ REFERENCE_VALUES.md:
 - one handbook table of equilibrium rotations (D-ribose, L-arabinose,
   D-xylose, D-glucose, D-galactose, D-fructose, D-mannose, L-rhamnose,
   L-sorbose);
-- D-mannose alpha and beta from memory ([memory]: give them a wide tolerance).
+- D-mannose alpha and beta from memory ([memory]: give them a wide tolerance);
+- the natural deoxy, amino, acetamido and acidic sugars, D-lyxose, D-tagatose
+  and D-manno-hept-2-ulose, and the anomers of L-rhamnose, from memory (Merck
+  Index and supplier figures as recalled; amino sugars as hydrochlorides): the
+  calibration layer gives every recalled value a wide standard error.
 
 A value published for one enantiomer applies to the other with its sign
 inverted (enantiomers rotate plane-polarised light equally and oppositely);
@@ -41,6 +45,7 @@ __all__ = [
 _BRUICE = "Bruice, Organic Chemistry, 8th ed., Pearson 2017, problems 20.65-66"
 _HANDBOOK = "handbook table of equilibrium specific rotations (REFERENCE_VALUES.md)"
 _MEMORY = "from memory (REFERENCE_VALUES.md [memory])"
+_RECALLED = "from memory (Merck Index and supplier figures as recalled, not re-read)"
 _VALUE_FIELDS = ("alpha", "beta", "equilibrium")
 
 
@@ -130,8 +135,35 @@ _TABLE: tuple[RotationRecord, ...] = (
     RotationRecord("L-arabinose", None, None, 104.5, f"equilibrium: {_HANDBOOK}"),
     RotationRecord("D-xylose", None, None, 19.0, f"equilibrium: {_HANDBOOK}"),
     RotationRecord("D-fructose", None, None, -92.0, f"equilibrium: {_HANDBOOK}"),
-    RotationRecord("L-rhamnose", None, None, 8.9, f"equilibrium: {_HANDBOOK}"),
+    RotationRecord(
+        "L-rhamnose", -7.7, 38.4, 8.9, f"equilibrium: {_HANDBOOK}; alpha, beta: {_RECALLED}", ("alpha", "beta")
+    ),
     RotationRecord("L-sorbose", None, None, -43.4, f"equilibrium: {_HANDBOOK}"),
+    # Natural deoxy, amino and acidic sugars and a ketose or two, every value recalled (wide error)
+    RotationRecord("D-lyxose", 5.5, None, -14.0, f"alpha, equilibrium: {_RECALLED}", ("alpha", "equilibrium")),
+    RotationRecord("D-tagatose", None, None, -5.0, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("L-fucose", None, None, -75.9, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("6-deoxy-D-glucose", None, None, 29.7, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("2-deoxy-D-glucose", None, None, 46.0, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("2-deoxy-D-ribose", None, None, -58.0, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord(
+        "D-glucosamine",
+        100.0,
+        28.0,
+        72.5,
+        f"hydrochloride; alpha, beta, equilibrium: {_RECALLED}",
+        ("alpha", "beta", "equilibrium"),
+    ),
+    RotationRecord("D-galactosamine", None, None, 93.0, f"hydrochloride; equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord(
+        "2-acetamido-2-deoxy-D-glucose", 64.0, None, 41.0, f"alpha, equilibrium: {_RECALLED}", ("alpha", "equilibrium")
+    ),
+    RotationRecord("2-acetamido-2-deoxy-D-galactose", None, None, 86.0, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("D-glucuronic acid", None, None, 36.0, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord(
+        "D-galacturonic acid", 98.0, None, 51.0, f"alpha, equilibrium: {_RECALLED}", ("alpha", "equilibrium")
+    ),
+    RotationRecord("D-manno-hept-2-ulose", None, None, 29.4, f"equilibrium: {_RECALLED}", ("equilibrium",)),
 )
 
 # Signs of the equilibrium rotations of the D-aldoses (REFERENCE_VALUES.md).
