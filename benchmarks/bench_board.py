@@ -12,29 +12,20 @@ that has been open for a while); the cold first change is printed too.
 from __future__ import annotations
 
 import statistics
+import sys
 import time
+from pathlib import Path
 
 from workbench.data import DEMO_PROJECT, data_path
 from workbench.evidence import engine, load_project, project_from_dict
 from workbench.ui.board import CandidateBoard
 from workbench.ui.session import Session
 
-REPEATS = 9
-LARGEST = {"carbons": [3, 4, 5, 6, 7, 8, 9], "modifications": ["any"]}
+sys.path.insert(0, str(Path(__file__).resolve().parent.parent / "tests"))
 
-BIG_PROJECT = {
-    "format": "stereosieve-project",
-    "version": 1,
-    "title": "Benchmark (invented): one unknown over the largest scope",
-    "unknowns": [{"id": "U1", "scope": LARGEST}],
-    "observations": [
-        {"id": "E1", "kind": "reducing_test", "unknown": "U1", "result": "positive"},
-        {"id": "E2", "kind": "bromine_water", "unknown": "U1", "result": "oxidised"},
-        {"id": "E3", "kind": "series", "unknown": "U1", "value": "L"},
-        {"id": "E4", "kind": "alditol", "unknown": "U1", "optically_active": True},
-        {"id": "E5", "kind": "molecular_formula", "unknown": "U1", "value": "C6H12O5"},
-    ],
-}
+from projects import FIVE_READINGS  # noqa: E402
+
+REPEATS = 9
 
 
 def _ms(seconds: list[float]) -> str:
@@ -83,7 +74,7 @@ def measure_workbench(label: str, project, toggle: str) -> None:
 
 def main() -> None:
     t = time.perf_counter()
-    opened = Session(project_from_dict(BIG_PROJECT))
+    opened = Session(project_from_dict(FIVE_READINGS))
     CandidateBoard(opened)
     print(
         f"opening the largest-scope project cold (first solve fills the caches, board drawn): "
@@ -91,15 +82,15 @@ def main() -> None:
     )
     demo = Session(load_project(data_path(DEMO_PROJECT)))
     measure("demo project (1 unknown, default scope), toggling E6", demo, "E6")
-    big = Session(project_from_dict(BIG_PROJECT))
+    big = Session(project_from_dict(FIVE_READINGS))
     measure("one unknown over the largest scope (C3-C9, modifications 'any'), toggling E4", big, "E4")
     measure("  same, toggling E2 (bromine water: the change that moves most candidates)", big, "E2")
-    wide = Session(project_from_dict(BIG_PROJECT))
+    wide = Session(project_from_dict(FIVE_READINGS))
     wide.set_disabled(("E2", "E4", "E5"))
     measure("  same, only E1 and E3 in use (about 1900 survivors on the board), toggling E3", wide, "E3")
 
     measure_workbench("whole workbench, demo project, toggling E6", load_project(data_path(DEMO_PROJECT)), "E6")
-    measure_workbench("whole workbench, largest scope, toggling E4", project_from_dict(BIG_PROJECT), "E4")
+    measure_workbench("whole workbench, largest scope, toggling E4", project_from_dict(FIVE_READINGS), "E4")
 
 
 if __name__ == "__main__":

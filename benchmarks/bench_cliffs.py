@@ -15,23 +15,18 @@ from __future__ import annotations
 import sys
 import time
 from collections.abc import Callable
+from pathlib import Path
 from typing import Any
 
 from workbench.evidence import project_from_dict, solve
 from workbench.evidence.planner import plan
 
+sys.path.insert(0, str(Path(__file__).resolve().parent.parent / "tests"))
+
+from projects import project_dict  # noqa: E402
+
 BROAD = {"carbons": [4, 5, 6, 7], "modifications": ["any"]}
 HEXOSES = {"carbons": [5, 6]}
-
-
-def _project(title: str, unknowns: list[dict[str, Any]], observations: list[dict[str, Any]]) -> dict[str, Any]:
-    return {
-        "format": "stereosieve-project",
-        "version": 1,
-        "title": title,
-        "unknowns": unknowns,
-        "observations": observations,
-    }
 
 
 def contradiction_project(unknowns: int = 100, contradictory: bool = True) -> dict[str, Any]:
@@ -55,10 +50,10 @@ def contradiction_project(unknowns: int = 100, contradictory: bool = True) -> di
             obs.append({"id": f"E{i}_{j}", "unknown": u, **row})
     if contradictory:
         obs.insert(len(obs) // 2, {"id": "BAD", "kind": "carbon_count", "unknown": "U7", "value": 5})
-    return _project(
-        "invented: many consistent observations" + (" and one contradiction" if contradictory else ""),
+    return project_dict(
         [{"id": f"U{i}", "scope": HEXOSES} for i in range(unknowns)],
         obs,
+        "invented: many consistent observations" + (" and one contradiction" if contradictory else ""),
     )
 
 
@@ -75,10 +70,10 @@ def cycle_project(size: int = 4, closed: bool = True, relation: str = "enantiome
         }
         for i in range(n)
     ]
-    return _project(
-        f"invented: {size} unknowns, {'a cycle' if closed else 'a path'} of {relation}-osazone relations",
+    return project_dict(
         [{"id": f"U{i}", "scope": BROAD} for i in range(size)],
         obs,
+        f"invented: {size} unknowns, {'a cycle' if closed else 'a path'} of {relation}-osazone relations",
     )
 
 
@@ -93,10 +88,10 @@ def linked_project(unknowns: int, cycle: bool = True, scope: dict[str, Any] | No
         )
     if cycle:
         obs.append({"id": "X", "kind": "different", "members": ["U0", "U1", "U2"]})
-    return _project(
-        f"invented: {unknowns} linked unknowns",
+    return project_dict(
         [{"id": f"U{i}", "scope": scope or {"carbons": [6]}} for i in range(unknowns)],
         obs,
+        f"invented: {unknowns} linked unknowns",
     )
 
 

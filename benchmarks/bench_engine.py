@@ -5,24 +5,19 @@ Run: ``python benchmarks/bench_engine.py``. Prints wall-clock medians (s).
 
 from __future__ import annotations
 
-import statistics
+import sys
 import time
 from pathlib import Path
+
+from timing import median_seconds
 
 from workbench.chem.catalogue import Scope, catalogue
 from workbench.evidence import load_project, project_from_dict, solve
 
 ROOT = Path(__file__).resolve().parent.parent
-LARGEST = {"carbons": [3, 4, 5, 6, 7, 8, 9], "modifications": ["any"]}
+sys.path.insert(0, str(ROOT / "tests"))
 
-
-def timed(fn, repeat: int = 3) -> float:
-    times = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t)
-    return statistics.median(times)
+from projects import LARGEST, over_scope, project_dict  # noqa: E402
 
 
 def chain_project(n: int, scope: dict) -> dict:
@@ -40,13 +35,7 @@ def chain_project(n: int, scope: dict) -> dict:
             }
         )
         obs.append({"id": f"D{i}", "kind": "alditol", "unknown": f"U{i}", "optically_active": True})
-    return {
-        "format": "stereosieve-project",
-        "version": 1,
-        "title": f"{n} linked unknowns",
-        "unknowns": unknowns,
-        "observations": obs,
-    }
+    return project_dict(unknowns, obs, f"{n} linked unknowns")
 
 
 def main() -> None:
@@ -54,30 +43,26 @@ def main() -> None:
     big = catalogue(Scope(carbons=tuple(range(3, 10)), modifications=("any",)))
     print(f"largest scope: {len(big)} candidates enumerated in {time.perf_counter() - t:.3f} s")
     fischer = load_project(ROOT / "tests" / "data" / "fischer_glucose.json")
-    print(f"four-unknown Fischer project: {timed(lambda: solve(fischer)):.4f} s (median of 3)")
-    one_big = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "one unknown, largest scope",
-            "unknowns": [{"id": "U", "scope": LARGEST}],
-            "observations": [
-                {"id": "E1", "kind": "bromine_water", "unknown": "U", "result": "oxidised"},
-                {"id": "E2", "kind": "aldaric_acid", "unknown": "U", "optically_active": False},
-                {"id": "E3", "kind": "carbon_count", "unknown": "U", "value": 6},
-            ],
-        }
+    print(f"four-unknown Fischer project: {median_seconds(lambda: solve(fischer)):.4f} s (median of 3)")
+    one_big = over_scope(
+        LARGEST,
+        [
+            {"id": "E1", "kind": "bromine_water", "unknown": "U", "result": "oxidised"},
+            {"id": "E2", "kind": "aldaric_acid", "unknown": "U", "optically_active": False},
+            {"id": "E3", "kind": "carbon_count", "unknown": "U", "value": 6},
+        ],
+        title="one unknown, largest scope",
     )
     t = time.perf_counter()
     solve(one_big)
     cold = time.perf_counter() - t
-    print(f"one unknown over the largest scope: cold {cold:.3f} s, warm {timed(lambda: solve(one_big)):.3f} s")
+    print(f"one unknown over the largest scope: cold {cold:.3f} s, warm {median_seconds(lambda: solve(one_big)):.3f} s")
     scope6 = {"carbons": [5, 6], "series": ["D", "L"]}
     for n in (1, 2, 3, 4, 6, 8):
         p = project_from_dict(chain_project(n, scope6))
         solve(p)
         print(
-            f"{n} linked unknowns (scope 5-6 carbons, {len(catalogue(Scope(carbons=(5, 6))))} each): {timed(lambda p=p: solve(p)):.4f} s"
+            f"{n} linked unknowns (scope 5-6 carbons, {len(catalogue(Scope(carbons=(5, 6))))} each): {median_seconds(lambda p=p: solve(p)):.4f} s"
         )
     for n in (1, 2, 4):
         p = project_from_dict(chain_project(n, LARGEST))

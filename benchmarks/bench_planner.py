@@ -6,17 +6,17 @@ in the process, warm = median of three later calls).
 
 from __future__ import annotations
 
-import statistics
+import sys
 import time
+from pathlib import Path
 
-from workbench.evidence import project_from_dict
+from timing import median_seconds
+
 from workbench.evidence.planner import plan
 
+sys.path.insert(0, str(Path(__file__).resolve().parent.parent / "tests"))
 
-def project(scope: dict) -> object:
-    return project_from_dict(
-        {"format": "stereosieve-project", "version": 1, "title": "bench", "unknowns": [{"id": "U", "scope": scope}]}
-    )
+from projects import over_scope  # noqa: E402
 
 
 def main() -> None:
@@ -25,20 +25,14 @@ def main() -> None:
         "64 survivors (D- and L-aldooctoses)": {"carbons": [8], "carbonyl": ["aldose"]},
     }
     for label, scope in cases.items():
-        p = project(scope)
+        p = over_scope(scope, title="bench")
         for look in (False, True):
             t = time.perf_counter()
             result = plan(p, lookahead=look)
             cold = time.perf_counter() - t
-            warm = []
-            for _ in range(3):
-                t = time.perf_counter()
-                plan(p, lookahead=look)
-                warm.append(time.perf_counter() - t)
+            warm = median_seconds(lambda p=p, look=look: plan(p, lookahead=look), repeat=3)
             n = sum(len(v) for v in result.experiments[0].outcomes.values()) if result.experiments else 0
-            print(
-                f"{label:<52} look-ahead={look!s:<5} survivors={n:<3} cold {cold:.2f} s, warm {statistics.median(warm):.3f} s"
-            )
+            print(f"{label:<52} look-ahead={look!s:<5} survivors={n:<3} cold {cold:.2f} s, warm {warm:.3f} s")
 
 
 if __name__ == "__main__":

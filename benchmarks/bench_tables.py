@@ -29,23 +29,15 @@ import time
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
-BROAD = {"carbons": [3, 4, 5, 6, 7, 8, 9], "modifications": ["any"]}
-ONE_OBSERVATION = {
-    "format": "stereosieve-project",
-    "version": 1,
-    "title": "Benchmark (invented): an unknown of unknown chain length",
-    "unknowns": [{"id": "U1", "scope": BROAD}],
-    "observations": [{"id": "E1", "kind": "reducing_test", "unknown": "U1", "result": "positive"}],
-}
-FIVE_OBSERVATIONS = dict(
-    ONE_OBSERVATION,
-    observations=[
-        {"id": "E1", "kind": "reducing_test", "unknown": "U1", "result": "positive"},
-        {"id": "E2", "kind": "bromine_water", "unknown": "U1", "result": "oxidised"},
-        {"id": "E3", "kind": "series", "unknown": "U1", "value": "L"},
-        {"id": "E4", "kind": "alditol", "unknown": "U1", "optically_active": True},
-        {"id": "E5", "kind": "molecular_formula", "unknown": "U1", "value": "C6H12O5"},
-    ],
+sys.path.insert(0, str(ROOT / "tests"))
+
+from projects import FIVE_READINGS, project_dict  # noqa: E402
+
+# FIVE_READINGS (one unknown over the broadest scope, five invented readings) with its first reading only
+ONE_OBSERVATION = project_dict(
+    FIVE_READINGS["unknowns"],
+    FIVE_READINGS["observations"][:1],
+    "Benchmark (invented): an unknown of unknown chain length",
 )
 
 
@@ -84,7 +76,7 @@ def warm_change() -> None:
 
     from workbench.evidence import engine, project_from_dict, tables
 
-    project = project_from_dict(FIVE_OBSERVATIONS)
+    project = project_from_dict(FIVE_READINGS)
     engine.solve(project)  # warm: columns and names filled
     times, cpu = [], []
     for i in range(11):

@@ -1,16 +1,22 @@
-"""Shared fixtures for the test suite."""
+"""Shared fixtures for the test suite (the throw-away outcome-table cache is set up by ../conftest.py)."""
 
 from __future__ import annotations
 
-import os
-import tempfile
+import shutil
+from pathlib import Path
 
 import pytest
 
-# Outcome tables computed by the tests go to a throw-away cache, not the user's cache folder.
-os.environ.setdefault("STEREOSIEVE_CACHE_DIR", tempfile.mkdtemp(prefix="stereosieve-cache-"))
-
 from workbench.chem import Scope, resolve
+from workbench.data import DEMO_PROJECT, data_path
+
+
+@pytest.fixture()
+def demo_file(tmp_path) -> Path:
+    """A copy of the demo project in the test's own folder (sessions and panels may save to it)."""
+    target = tmp_path / "demo.json"
+    shutil.copyfile(data_path(DEMO_PROJECT), target)
+    return target
 
 
 @pytest.fixture(scope="session")
@@ -31,8 +37,6 @@ def opsin(request, tmp_path_factory):
     Java run; a test that needs OPSIN is skipped where Java or py2opsin is
     missing.
     """
-    import shutil
-
     from workbench.chem.smiles import canonical
 
     if shutil.which("java") is None:

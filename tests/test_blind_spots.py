@@ -10,6 +10,7 @@ from __future__ import annotations
 import math
 
 import pytest
+from projects import project
 from rdkit import Chem
 from rdkit.Chem import rdCIPLabeler
 
@@ -18,7 +19,7 @@ from workbench.chem.parse import resolve
 from workbench.chem.predictions import predict as predict_record
 from workbench.chem.smiles import to_smiles
 from workbench.conformers import fit_mutarotation
-from workbench.evidence import project_from_dict, solve
+from workbench.evidence import solve
 from workbench.evidence.network import Binary, supported_domains
 
 OPSIN_NAMES = [
@@ -41,18 +42,6 @@ O_METHYL_PATTERNS = {
     "4-O-methyl-D-glucose": "CHO-CHOH(r)-CHOH(l)-CHOMe(r)-CHOH(r)-CH2OH",
     "2-O-methyl-L-arabinose": "CHO-CHOMe(r)-CHOH(l)-CHOH(l)-CH2OH",
 }
-
-
-def _project(unknowns: list[dict], observations: list[dict]):
-    return project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "blind spots",
-            "unknowns": unknowns,
-            "observations": observations,
-        }
-    )
 
 
 # --------------------------------------------------- O-methyl stereocentres
@@ -136,7 +125,7 @@ def test_different_with_three_members_constrains_every_pair():
     # D-threose; counting). Mutant killed: only neighbouring members constrained (X!=Y, Y!=Z
     # lets X = Z), which finds a solution.
     tetrose = {"carbons": [4], "carbonyl": ["aldose"], "series": ["D"]}
-    p = _project(
+    p = project(
         [{"id": u, "scope": tetrose} for u in ("X", "Y", "Z")],
         [{"id": "D1", "kind": "different", "members": ["X", "Y", "Z"]}],
     )
@@ -146,7 +135,7 @@ def test_different_with_three_members_constrains_every_pair():
 def test_different_with_a_known_last_member():
     # X differs from D-erythrose and from D-threose: no D-aldotetrose is left (counting).
     tetrose = {"carbons": [4], "carbonyl": ["aldose"], "series": ["D"]}
-    p = _project(
+    p = project(
         [{"id": "X", "scope": tetrose}],
         [{"id": "D1", "kind": "different", "members": ["X", "D-erythrose", "D-threose"]}],
     )
@@ -160,7 +149,7 @@ def test_different_osazones_with_three_members():
     # osazone different from both D-glucose's and D-galactose's leaves allose, altrose, gulose
     # and idose. Mutant killed: the X - D-galactose pair (not neighbours) left unconstrained.
     hexose = {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}
-    p = _project(
+    p = project(
         [{"id": "X", "scope": hexose}],
         [
             {
@@ -201,7 +190,7 @@ def test_periodate_comparison_uses_formaldehyde(substrate, right, wrong):
             "formic_acid": hcooh,
             "formaldehyde": hcho,
         }
-        return solve(_project([{"id": "X", "scope": hexose}], [obs])).survivors["X"]
+        return solve(project([{"id": "X", "scope": hexose}], [obs])).survivors["X"]
 
     assert glucose in survivors(right)
     assert glucose not in survivors(wrong)
@@ -292,20 +281,14 @@ def test_three_observations_on_one_pair_of_unknowns():
         "relation": "identical",
         "members": ["X", "Y"],
     }
-    aldaric = {
-        "id": "S2",
-        "kind": "same_product",
-        "reaction": "aldaric_acid",
-        "relation": "identical",
-        "members": ["X", "Y"],
-    }
+    aldaric = {**osazone, "id": "S2", "reaction": "aldaric_acid"}
     differ = {"id": "D1", "kind": "different", "members": ["X", "Y"]}
-    names = lambda obs: {c.pattern for c in solve(_project(unknowns, obs)).survivors["X"]}  # noqa: E731
+    names = lambda obs: {c.pattern for c in solve(project(unknowns, obs)).survivors["X"]}  # noqa: E731
     alt_tal = {resolve("D-altrose").pattern, resolve("D-talose").pattern}
     assert len(names([osazone, differ])) == 8
     assert names([aldaric, differ]) == alt_tal
     assert len(names([osazone, aldaric])) == 8
-    assert solve(_project(unknowns, [osazone, aldaric, differ])).contradictory
+    assert solve(project(unknowns, [osazone, aldaric, differ])).contradictory
 
 
 # --------------------------------------------------- a named deoxy alditol stands for itself
@@ -323,5 +306,5 @@ def test_named_deoxy_alditol_compares_with_the_reduced_sugar(alditol, sugar):
         "relation": "identical",
         "members": ["X", alditol],
     }
-    sol = solve(_project([{"id": "X", "scope": scope}], [obs]))
+    sol = solve(project([{"id": "X", "scope": scope}], [obs]))
     assert list(sol.survivors["X"]) == [resolve(sugar)]

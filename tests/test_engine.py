@@ -8,25 +8,14 @@ from pathlib import Path
 import pytest
 from hypothesis import HealthCheck, example, given, settings
 from hypothesis import strategies as st
+from projects import project
 
 from workbench.chem import catalogue, display_name
 from workbench.chem.catalogue import Scope
-from workbench.evidence import load_project, project_from_dict, solve
+from workbench.evidence import load_project, solve
 from workbench.evidence.engine import constraints_of, joint_worlds, unary_domains
 
 DATA = Path(__file__).parent / "data"
-
-
-def project(unknowns, observations, title="test"):
-    return project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": title,
-            "unknowns": unknowns,
-            "observations": observations,
-        }
-    )
 
 
 def names(solution, uid):

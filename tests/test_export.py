@@ -13,6 +13,7 @@ import shutil
 from pathlib import Path
 
 import pytest
+from projects import FOUR_LINKED_GLUCOSE
 from rdkit import Chem
 
 from workbench.cli import main
@@ -137,17 +138,7 @@ def test_csv_cells_that_look_like_formulas_stay_text():
 
 
 def test_residue_survivors_carry_their_condensed_name_and_the_released_sugar():
-    project = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "unknowns": [{"id": "R1", "type": "residue", "scope": {"sugars": ["D-glucose"]}}],
-            "observations": [
-                {"id": "E1", "kind": "methylation_analysis", "unknown": "R1", "methyl": [2, 3, 6], "acetyl": [1, 4, 5]},
-                {"id": "E2", "kind": "anomer", "unknown": "R1", "value": "alpha"},
-            ],
-        }
-    )
+    project = project_from_dict(FOUR_LINKED_GLUCOSE)
     rows = survivor_rows(solve(project))
     # 1,4,5-tri-O-acetyl-2,3,6-tri-O-methyl-glucitol: a 4-linked glucopyranose or a 5-linked glucofuranose
     # (methylation analysis, Bjoerndal et al. 1970 [memory]; REFERENCE_VALUES.md "Glycan residues")

@@ -16,6 +16,7 @@ from pathlib import Path
 
 import pandas as pd
 import pytest
+from projects import FOUR_LINKED_GLUCOSE_OXIDISED
 from rdkit import Chem
 
 from workbench.chem import Scope, resolve
@@ -157,30 +158,7 @@ def test_survivors_frame_flags_candidates_without_a_published_rotation():
 # ------------------------------------------------------------------ glycan residues
 @pytest.fixture(scope="module")
 def four_linked():
-    observations = [
-        {"id": "E1", "kind": "methylation_analysis", "unknown": "R1", "methyl": [2, 3, 6], "acetyl": [1, 4, 5]},
-        {"id": "E2", "kind": "anomer", "unknown": "R1", "value": "alpha"},
-        {
-            "id": "E3",
-            "kind": "periodate",
-            "unknown": "R1",
-            "substrate": "residue",
-            "periodate": 1.0,
-            "formic_acid": 0.0,
-            "formaldehyde": 0.0,
-        },
-        {"id": "E4", "kind": "smith_degradation", "unknown": "R1", "product": "erythritol"},
-    ]
-    project = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "one glucose residue",
-            "unknowns": [{"id": "R1", "type": "residue", "scope": {"sugars": ["D-glucose"]}}],
-            "observations": observations,
-        }
-    )
-    return solve(project)
+    return solve(project_from_dict(FOUR_LINKED_GLUCOSE_OXIDISED))
 
 
 def test_residues_frame_lists_the_surviving_residue_candidates(four_linked):

@@ -9,6 +9,7 @@ reaction decision names its source beside the check.
 from __future__ import annotations
 
 import pytest
+from projects import over_scope
 
 from workbench.chem import from_name, from_smiles, resolve, to_smiles
 from workbench.chem.catalogue import Scope, catalogue, parse_modification
@@ -17,7 +18,7 @@ from workbench.chem.predictions import predict as record_of
 from workbench.chem.predictions import predictions_json
 from workbench.chem.reactions import Uncertain, aldaric_acid, osazone, shorten
 from workbench.chem.symbols import from_symbol, symbol
-from workbench.evidence import project_from_dict, solve
+from workbench.evidence import solve
 from workbench.evidence.observations import observation_from_dict
 from workbench.evidence.outcomes import NO_PREDICTION, fits
 from workbench.evidence.outcomes import predict as outcome_of
@@ -37,18 +38,6 @@ OPSIN_NAMES = [
     "L-arabinose",
     "D-fructose",
 ]
-
-
-def _project(scope: dict, observations: list[dict], members: tuple[str, ...] = ("U",)) -> object:
-    return project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "modified sugars",
-            "unknowns": [{"id": m, "scope": scope} for m in members],
-            "observations": observations,
-        }
-    )
 
 
 # ------------------------------------------------------------------ symbols
@@ -170,7 +159,7 @@ def test_2_o_methyl_aldose_gives_the_parent_osazone_and_keeps_the_true_sugar():
     # methanol [from memory]. A 2-O-methyl-6-deoxyhexose whose osazone equals L-fucose's survives.
     chain = from_name("6-deoxy-2-O-methyl-L-galacto-hexose")
     assert to_smiles(osazone(chain)) == to_smiles(osazone(resolve("L-fucose")))
-    project = _project(
+    project = over_scope(
         {"carbons": [6], "carbonyl": ["aldose"], "modifications": ["omethyl:2+deoxy:6"]},
         [
             {
@@ -191,7 +180,7 @@ def test_2_o_methyl_aldose_gives_the_parent_osazone_and_keeps_the_true_sugar():
 def test_nitric_acid_on_a_6_deoxyhexose_is_kept_and_flagged():
     # methyl pentoses are attacked by nitric acid (L-rhamnose gives a trihydroxyglutaric acid,
     # from memory); which diacid forms is not predicted: an observed active diacid keeps all 8
-    project = _project(
+    project = over_scope(
         {"carbons": [6], "carbonyl": ["aldose"], "series": ["L"], "modifications": ["deoxy:6"]},
         [{"id": "E", "kind": "aldaric_acid", "unknown": "U", "optically_active": True}],
     )
@@ -206,7 +195,7 @@ def test_nitric_acid_on_amino_sugars_is_not_predicted():
     # from memory): no 2-amino aldaric acid is predicted, for NH2 and for NHAc
     for name in ("D-glucosamine", "N-acetyl-D-glucosamine"):
         assert isinstance(aldaric_acid(resolve(name)), Uncertain)
-    project = _project(
+    project = over_scope(
         {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"], "modifications": ["amino:2"]},
         [{"id": "E", "kind": "aldaric_acid", "unknown": "U", "optically_active": False}],
     )
@@ -219,7 +208,7 @@ def test_ruff_degradation_of_a_uronic_acid_is_kept_and_flagged():
     glca = resolve("D-glucuronic acid")
     assert isinstance(shorten(glca), Uncertain)
     assert "chain_shortening" in predictions_json(glca)["uncertain"]
-    project = _project(
+    project = over_scope(
         {"carbons": [5], "carbonyl": ["aldose"], "series": ["D"], "modifications": ["uronic"]},
         [{"id": "E", "kind": "chain_shortening", "method": "ruff", "substrate": "D-glucuronic acid", "product": "U"}],
     )
@@ -230,7 +219,7 @@ def test_ruff_degradation_of_a_uronic_acid_is_kept_and_flagged():
 def test_doubtful_product_in_a_relation_keeps_and_flags_the_candidate():
     # GlcNAc's osazone is not predicted (from memory: the acetamido group must leave first), so an
     # osazone relation with D-glucose keeps every 2-acetamido hexose of the scope, flagged
-    project = _project(
+    project = over_scope(
         {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"], "modifications": ["acetamido:2"]},
         [
             {

@@ -13,29 +13,18 @@ from __future__ import annotations
 from collections import defaultdict
 
 import pytest
+from projects import over_scope
 
 from workbench.chem.catalogue import Scope, catalogue
 from workbench.chem.chain import Chain
 from workbench.chem.names import display_name
 from workbench.chem.predictions import predict as record_of
 from workbench.chem.predictions import predictions_json
-from workbench.evidence import project_from_dict, solve
+from workbench.evidence import solve
 from workbench.evidence.planner import _unary_outcomes, plan
 
 LARGEST = Scope(carbons=tuple(range(3, 10)), modifications=("any",))
 TESTS = ("reducing_test", "ketose_test")
-
-
-def _project(scope: dict, observations: list[dict]):
-    return project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "one rule",
-            "unknowns": [{"id": "X", "scope": scope}],
-            "observations": observations,
-        }
-    )
 
 
 def _record_answer(kind: str, chain: Chain) -> str:
@@ -69,7 +58,7 @@ def test_predict_record_answers_the_same_for_every_stereoisomer_of_a_constitutio
 @pytest.mark.parametrize("kind", TESTS)
 @pytest.mark.parametrize("observed", ["positive", "negative"])
 def test_solve_keeps_exactly_the_candidates_predict_answers_with(kind, observed, by_template):
-    project = _project(LARGEST.to_dict(), [{"id": "T", "kind": kind, "unknown": "X", "result": observed}])
+    project = over_scope(LARGEST.to_dict(), [{"id": "T", "kind": kind, "unknown": "X", "result": observed}], ("X",))
     sol = solve(project)
     survivors = set(sol.survivors["X"])
     expected = {c for chains in by_template.values() if _record_answer(kind, chains[0]) == observed for c in chains}
@@ -94,7 +83,7 @@ DEOXY_HEXULOSES = {
 
 def test_plan_outcomes_name_the_same_deoxy_ketoses_as_the_records():
     scope = DEOXY_HEXULOSES
-    project = _project(scope, [])
+    project = over_scope(scope, [], ("X",))
     chains = catalogue(Scope.from_dict(scope))
     result = plan(project, limit=200)
     for kind in TESTS:
@@ -142,7 +131,7 @@ def test_deoxy_ketose_outcomes_by_hand(pattern, reducing, ketose, why):
     scope = {"carbons": [chain.carbons], "carbonyl": ["ketose"], "modifications": ["any", "deoxy:1,3"]}
     for kind, right in (("reducing_test", reducing), ("ketose_test", ketose)):
         wrong = "negative" if right == "positive" else "positive"
-        kept = solve(_project(scope, [{"id": "T", "kind": kind, "unknown": "X", "result": right}]))
-        gone = solve(_project(scope, [{"id": "T", "kind": kind, "unknown": "X", "result": wrong}]))
+        kept = solve(over_scope(scope, [{"id": "T", "kind": kind, "unknown": "X", "result": right}], ("X",)))
+        gone = solve(over_scope(scope, [{"id": "T", "kind": kind, "unknown": "X", "result": wrong}], ("X",)))
         assert chain in kept.survivors["X"], (why, kind)
         assert chain not in gone.survivors["X"], (why, kind)

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import json
 
+import projects
 import pytest
 
 from workbench.cli import main
@@ -16,19 +17,6 @@ from workbench.errors import ProjectError
 from workbench.evidence import project_from_dict, solve
 from workbench.evidence.planner import plan
 from workbench.evidence.residue_outcomes import feasible_counts
-
-
-def _project(unknowns, observations):
-    return project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "residue test",
-            "unknowns": unknowns,
-            "observations": observations,
-        }
-    )
-
 
 GLC = {"sugars": ["D-glucose"]}
 
@@ -39,28 +27,14 @@ def _names(solution, uid):
 
 def test_residue_unknown_enumerates_rings_anomers_and_linkages():
     # D-glucose: 2 rings x 2 anomers x (1 + 4 + 6) linkage sets of at most two of four free positions
-    project = _project([{"id": "R1", "type": "residue", "scope": GLC}], [])
+    project = projects.project([{"id": "R1", "type": "residue", "scope": GLC}], [])
     assert solve(project).scope_counts["R1"] == 44
 
 
 def test_four_linked_pyranose_and_five_linked_furanose_stay_ambiguous():
     # a 4-linked pyranose and a 5-linked furanose give the same alditol acetate, the same periodate uptake
     # (1 IO4-, no HCOOH) and the same Smith fragment (erythritol) (REFERENCE_VALUES.md, common practice)
-    observations = [
-        {"id": "E1", "kind": "methylation_analysis", "unknown": "R1", "methyl": [2, 3, 6], "acetyl": [1, 4, 5]},
-        {"id": "E2", "kind": "anomer", "unknown": "R1", "value": "alpha"},
-        {
-            "id": "E3",
-            "kind": "periodate",
-            "unknown": "R1",
-            "substrate": "residue",
-            "periodate": 1.0,
-            "formic_acid": 0.0,
-            "formaldehyde": 0.0,
-        },
-        {"id": "E4", "kind": "smith_degradation", "unknown": "R1", "product": "erythritol"},
-    ]
-    project = _project([{"id": "R1", "type": "residue", "scope": GLC}], observations)
+    project = project_from_dict(projects.FOUR_LINKED_GLUCOSE_OXIDISED)
     solution = solve(project)
     assert _names(solution, "R1") == ["->4)-alpha-D-Glcp-(1->", "->5)-alpha-D-Glcf-(1->"]
     # the planner proposes what separates them
@@ -82,20 +56,12 @@ def test_four_linked_pyranose_and_five_linked_furanose_stay_ambiguous():
 def test_periodate_separates_linkage_types_of_a_galactan():
     # 3-linked hexopyranosyl: no periodate consumed; 6-linked: 2 IO4-, 1 HCOOH (REFERENCE_VALUES.md)
     observations = [
-        {
-            "id": "E1",
-            "kind": "periodate",
-            "unknown": "R1",
-            "substrate": "residue",
-            "periodate": 2.0,
-            "formic_acid": 1.0,
-            "formaldehyde": 0.0,
-        },
+        projects.residue_periodate("E1", periodate=2.0, formic_acid=1.0),
         {"id": "E2", "kind": "ring_form", "unknown": "R1", "value": "pyranose"},
         {"id": "E3", "kind": "anomer", "unknown": "R1", "value": "beta"},
     ]
     scope = {"sugars": ["D-galactose"], "max_linked": 1}
-    solution = solve(_project([{"id": "R1", "type": "residue", "scope": scope}], observations))
+    solution = solve(projects.project([{"id": "R1", "type": "residue", "scope": scope}], observations))
     assert _names(solution, "R1") == ["->6)-beta-D-Galp-(1->", "beta-D-Galp-(1->"]
 
 
@@ -105,17 +71,9 @@ def test_contradictory_residue_evidence_reports_its_minimal_conflict():
     observations = [
         {"id": "E1", "kind": "anomer", "unknown": "R1", "value": "beta"},
         {"id": "E2", "kind": "methylation_analysis", "unknown": "R1", "methyl": [2, 4, 6], "acetyl": [1, 3, 5]},
-        {
-            "id": "E3",
-            "kind": "periodate",
-            "unknown": "R1",
-            "substrate": "residue",
-            "periodate": 2.0,
-            "formic_acid": 1.0,
-            "formaldehyde": 0.0,
-        },
+        projects.residue_periodate("E3", periodate=2.0, formic_acid=1.0),
     ]
-    solution = solve(_project([{"id": "R1", "type": "residue", "scope": GLC}], observations))
+    solution = solve(projects.project([{"id": "R1", "type": "residue", "scope": GLC}], observations))
     assert solution.contradictory
     assert [sorted(c) for c in solution.conflicts] == [["E2", "E3"]]
 
@@ -131,12 +89,12 @@ def test_branching_balance_forces_the_other_residue_terminal():
         {"id": "R1", "type": "residue", "scope": {"sugars": ["D-glucose"], "ring": ["pyranose"]}},
         {"id": "R2", "type": "residue", "scope": {"sugars": ["D-glucose"], "ring": ["pyranose"]}},
     ]
-    solution = solve(_project(unknowns, observations))
+    solution = solve(projects.project(unknowns, observations))
     assert {len(r.linked) for r in solution.survivors["R2"]} == {0}
     assert len(solution.survivors["R2"]) == 2  # alpha or beta terminal Glcp
     # without the balance the amounts say nothing about linkage
     loose = [observations[0], {**observations[1], "balance": False}]
-    assert len(solve(_project(unknowns, loose)).survivors["R2"]) == 2 * 11
+    assert len(solve(projects.project(unknowns, loose)).survivors["R2"]) == 2 * 11
 
 
 def test_feasible_counts_of_the_balance():
@@ -149,7 +107,7 @@ def test_sugar_level_kinds_judge_the_released_sugar():
     # the carbon count of the sugar released by hydrolysis: a pentose residue has 5 carbons (definition)
     observations = [{"id": "E1", "kind": "carbon_count", "unknown": "R1", "value": 5}]
     scope = {"sugars": ["D-glucose", "D-xylose"], "ring": ["pyranose"], "anomer": ["beta"], "max_linked": 0}
-    solution = solve(_project([{"id": "R1", "type": "residue", "scope": scope}], observations))
+    solution = solve(projects.project([{"id": "R1", "type": "residue", "scope": scope}], observations))
     assert _names(solution, "R1") == ["beta-D-Xylp-(1->"]
 
 
@@ -232,7 +190,7 @@ def test_contradiction_exits_3_and_bad_residue_input_exits_2(tmp_path, capsys):
 )
 def test_bad_residue_observations_are_named(unknowns, observation, words):
     with pytest.raises(ProjectError) as err:
-        _project(unknowns, [{"id": "E9", **observation}])
+        projects.project(unknowns, [{"id": "E9", **observation}])
     assert "E9" in str(err.value) and words in str(err.value)
 
 
@@ -247,13 +205,13 @@ def test_bad_residue_observations_are_named(unknowns, observation, words):
 )
 def test_bad_residue_unknowns_are_named(unknown, words):
     with pytest.raises(ProjectError) as err:
-        _project([unknown], [])
+        projects.project([unknown], [])
     assert "R1" in str(err.value) and words in str(err.value)
 
 
 def test_planner_cautions_for_methylation_analysis():
     # methyl iodide: toxic alkylating agent, suspected carcinogen; NaH/DMSO (REFERENCE_VALUES.md, hazards)
-    project = _project([{"id": "R1", "type": "residue", "scope": GLC}], [])
+    project = projects.project([{"id": "R1", "type": "residue", "scope": GLC}], [])
     experiments = {e.kind: e for e in plan(project, limit=50).experiments}
     cautions = " ".join(experiments["methylation_analysis"].cautions)
     assert "Methyl iodide" in cautions and "carcinogen" in cautions and "hydride" in cautions

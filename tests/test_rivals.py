@@ -5,6 +5,8 @@ from __future__ import annotations
 import math
 from pathlib import Path
 
+from projects import FOUR_LINKED_GLUCOSE
+
 from workbench.chem import display_name
 from workbench.evidence import load_project, project_from_dict, solve
 from workbench.evidence.rivals import closest_rivals, survivor_probabilities
@@ -23,17 +25,7 @@ def test_deoxyhexose_rivals_are_removed_by_the_last_records_epimers_first():
 
 
 def test_survivors_share_belief_and_rank_as_rivals():
-    project = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "unknowns": [{"id": "R1", "type": "residue", "scope": {"sugars": ["D-glucose"]}}],
-            "observations": [
-                {"id": "E1", "kind": "methylation_analysis", "unknown": "R1", "methyl": [2, 3, 6], "acetyl": [1, 4, 5]},
-                {"id": "E2", "kind": "anomer", "unknown": "R1", "value": "alpha"},
-            ],
-        }
-    )
+    project = project_from_dict(FOUR_LINKED_GLUCOSE)
     solution = solve(project)
     shares = survivor_probabilities(solution, "R1")
     # a 4-linked alpha-glucopyranosyl or a 5-linked alpha-glucofuranosyl residue give the same alditol

@@ -11,6 +11,7 @@ import json
 from pathlib import Path
 
 import jsonschema
+import projects
 import pytest
 
 from workbench.cli import main
@@ -55,9 +56,14 @@ def test_every_project_file_validates(validator, path):
 
 
 def _projects_written_in_tests() -> list[tuple[str, dict]]:
-    """Project files spelt out in the test modules: literal dicts with the format key, and literal
-    ``project(unknowns, observations)`` calls (the helper of tests/test_engine.py)."""
-    found = []
+    """Project files spelt out in the test modules: literal dicts with the format key, literal
+    ``project(unknowns, observations)`` calls (the helper of tests/projects.py), and the project dicts
+    that tests/projects.py shares between modules."""
+    found = [
+        (f"projects.py:{name}", value)
+        for name, value in vars(projects).items()
+        if isinstance(value, dict) and value.get("format") == "stereosieve-project"
+    ]
     for path in sorted((ROOT / "tests").glob("test_*.py")):
         for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"))):
             try:

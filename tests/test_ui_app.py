@@ -9,7 +9,6 @@ from pathlib import Path
 import pytest
 
 from workbench.cli import main
-from workbench.data import DEMO_PROJECT, data_path
 from workbench.errors import ProjectError
 from workbench.ui import Workbench
 from workbench.ui import notebook as lab
@@ -20,10 +19,8 @@ SAMPLES = Path(__file__).resolve().parent.parent / "sample_projects"
 
 
 @pytest.fixture()
-def bench(tmp_path):
-    target = tmp_path / "demo.json"
-    shutil.copyfile(data_path(DEMO_PROJECT), target)
-    return Workbench.open(target)
+def bench(demo_file):
+    return Workbench.open(demo_file)
 
 
 def test_workbench_wires_the_panels_to_one_session(bench):

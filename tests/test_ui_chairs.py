@@ -2,21 +2,16 @@
 
 from __future__ import annotations
 
-import shutil
-
 import pytest
 
 from workbench.chem import resolve
-from workbench.data import DEMO_PROJECT, data_path
 from workbench.ui.chairs import ChairPanel, chair_views, view_3d
 from workbench.ui.session import Session
 
 
 @pytest.fixture()
-def two_left(tmp_path):
-    target = tmp_path / "demo.json"
-    shutil.copyfile(data_path(DEMO_PROJECT), target)
-    session = Session.open(target)
+def two_left(demo_file):
+    session = Session.open(demo_file)
     session.set_enabled("E6", False)  # D-allose and D-galactose
     return session
 

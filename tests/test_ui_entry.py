@@ -6,12 +6,9 @@ REFERENCE_VALUES.md, from memory of the textbook facts listed there.
 
 from __future__ import annotations
 
-import shutil
-
 import pytest
 
 from workbench.chem.names import display_name
-from workbench.data import DEMO_PROJECT, data_path
 from workbench.evidence import OBSERVATION_TYPES, engine
 from workbench.ui.board import CandidateBoard
 from workbench.ui.entry import EvidenceForm
@@ -19,10 +16,8 @@ from workbench.ui.session import Session
 
 
 @pytest.fixture()
-def session(tmp_path):
-    target = tmp_path / "demo.json"
-    shutil.copyfile(data_path(DEMO_PROJECT), target)
-    s = Session.open(target)
+def session(demo_file):
+    s = Session.open(demo_file)
     s.delete("E6")  # two survivors left: D-allose, D-galactose
     return s
 

@@ -8,7 +8,6 @@ from pathlib import Path
 
 import pytest
 
-from workbench.data import DEMO_PROJECT, data_path
 from workbench.evidence import engine
 from workbench.ui.board import CandidateBoard
 from workbench.ui.ledger import LedgerPanel
@@ -20,10 +19,8 @@ SAMPLES = Path(__file__).resolve().parent.parent / "sample_projects"
 
 
 @pytest.fixture()
-def demo(tmp_path):
-    target = tmp_path / "demo.json"
-    shutil.copyfile(data_path(DEMO_PROJECT), target)
-    return Session.open(target)
+def demo(demo_file):
+    return Session.open(demo_file)
 
 
 @pytest.fixture()

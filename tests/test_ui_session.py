@@ -9,23 +9,13 @@ from __future__ import annotations
 
 import json
 import os
-import shutil
-from pathlib import Path
 
 import pytest
 
 from workbench.chem.names import display_name
-from workbench.data import DEMO_PROJECT, data_path
 from workbench.errors import ObservationError, ProjectError, ScopeError
 from workbench.evidence import engine
 from workbench.ui.session import Session, SessionError
-
-
-@pytest.fixture()
-def demo_file(tmp_path) -> Path:
-    target = tmp_path / "demo.json"
-    shutil.copyfile(data_path(DEMO_PROJECT), target)
-    return target
 
 
 @pytest.fixture()

@@ -18,6 +18,7 @@ import json
 import math
 
 import pytest
+from projects import over_scope, project_dict
 
 from workbench.chem.names import display_name
 from workbench.chem.parse import resolve
@@ -87,18 +88,6 @@ PUBLISHED = [
 ]
 
 
-def _project(scope: dict, observations: list[dict]):
-    return project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "one published value",
-            "unknowns": [{"id": "U", "scope": scope}],
-            "observations": observations,
-        }
-    )
-
-
 def _observation(kind, value) -> dict:
     if isinstance(kind, tuple):
         _, form, pair = kind
@@ -113,7 +102,7 @@ def test_published_values_cover_enough_sugars():
 
 @pytest.mark.parametrize(("name", "scope", "kind", "value"), PUBLISHED)
 def test_a_published_value_keeps_its_true_sugar(name, scope, kind, value):
-    solution = solve(_project(scope, [_observation(kind, value)]))
+    solution = solve(over_scope(scope, [_observation(kind, value)]))
     assert resolve(name) in solution.survivors["U"]
     assert sum(solution.probabilities["U"].values()) == pytest.approx(1.0)
 
@@ -121,7 +110,7 @@ def test_a_published_value_keeps_its_true_sugar(name, scope, kind, value):
 def test_the_true_sugar_is_most_probable_or_tied_in_most_projects():
     top = 0
     for name, scope, kind, value in PUBLISHED:
-        solution = solve(_project(scope, [_observation(kind, value)]))
+        solution = solve(over_scope(scope, [_observation(kind, value)]))
         best = max(solution.probabilities["U"].values())
         top += solution.probability("U", resolve(name)) >= 0.9 * best
     assert top >= 0.75 * len(PUBLISHED)
@@ -131,7 +120,7 @@ def test_the_talose_project_of_issue_10_ends_on_talose():
     # issue 10: bromine water, series and the equilibrium rotation removed D-talose; D-talose alpha share
     # 0.58 (Angyal, issue 10), sign (+) (REFERENCE_VALUES.md), +20.8 from memory
     solution = solve(
-        _project(
+        over_scope(
             {"carbons": [5, 6]},
             [
                 {"id": "E1", "kind": "bromine_water", "unknown": "U", "result": "oxidised"},
@@ -148,7 +137,7 @@ def test_the_talose_project_of_issue_10_ends_on_talose():
 def test_altrose_is_no_longer_a_false_contradiction():
     # issue 10: D-altrose (alpha share 0.39, Angyal) with bromine water and series D gave a contradiction
     solution = solve(
-        _project(
+        over_scope(
             HEX,
             [
                 {"id": "E1", "kind": "bromine_water", "unknown": "U", "result": "oxidised"},
@@ -234,28 +223,14 @@ def _brute_force(project) -> dict[str, dict]:
 
 def _linked(extra: list[dict]):
     scope = {"carbons": [6], "carbonyl": ["aldose", "ketose"], "series": ["D"]}
-    return project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "linked",
-            "unknowns": [{"id": u, "scope": scope} for u in ("A", "B", "C")],
-            "observations": [
-                {"id": "Q1", "kind": "anomer_ratio", "unknown": "A", "alpha_fraction": 0.5, "reliability": 0.9},
-                {"id": "Q2", "kind": "specific_rotation", "unknown": "B", "value": 30.0},
-                {"id": "Q3", "kind": "anomer_ratio", "unknown": "C", "alpha_fraction": 0.3},
-                {
-                    "id": "R1",
-                    "kind": "same_product",
-                    "reaction": "osazone",
-                    "members": ["A", "B"],
-                    "relation": "identical",
-                },
-                {"id": "R2", "kind": "different", "members": ["B", "C"]},
-                *extra,
-            ],
-        }
-    )
+    observations = [
+        {"id": "Q1", "kind": "anomer_ratio", "unknown": "A", "alpha_fraction": 0.5, "reliability": 0.9},
+        {"id": "Q2", "kind": "specific_rotation", "unknown": "B", "value": 30.0},
+        {"id": "Q3", "kind": "anomer_ratio", "unknown": "C", "alpha_fraction": 0.3},
+        {"id": "R1", "kind": "same_product", "reaction": "osazone", "members": ["A", "B"], "relation": "identical"},
+        {"id": "R2", "kind": "different", "members": ["B", "C"]},
+    ]
+    return over_scope(scope, [*observations, *extra], ("A", "B", "C"), "linked")
 
 
 @pytest.mark.parametrize("cyclic", [False, True])
@@ -294,7 +269,7 @@ def test_a_cycle_with_trees_hanging_off_it_is_summed_exactly():
 def test_suspects_name_the_unreliable_record_first():
     # D-glucose-type evidence (common practice: glucose is oxidised by bromine water and has an optically
     # active aldaric acid) plus a record marked doubtful that contradicts it
-    project = _project(
+    project = over_scope(
         HEX,
         [
             {"id": "E1", "kind": "aldaric_acid", "unknown": "U", "optically_active": True},
@@ -313,15 +288,7 @@ def test_suspects_name_the_unreliable_record_first():
 def test_solve_json_carries_probabilities_flags_and_entropy(tmp_path, capsys):
     path = tmp_path / "p.json"
     path.write_text(
-        json.dumps(
-            {
-                "format": "stereosieve-project",
-                "version": 1,
-                "title": "json",
-                "unknowns": [{"id": "U", "scope": HEX}],
-                "observations": [_observation("specific_rotation", -20.0)],
-            }
-        )
+        json.dumps(project_dict([{"id": "U", "scope": HEX}], [_observation("specific_rotation", -20.0)], "json"))
     )
     assert main(["solve", str(path), "--json"]) == 0
     data = json.loads(capsys.readouterr().out)
@@ -356,7 +323,7 @@ def test_board_and_text_show_a_probability_bar_per_survivor():
     from workbench.report_text import solution_text
 
     # D-glucose +52.7 (Bruice 8th ed.): the only D-aldohexose with a published value this close
-    solution = solve(_project(HEX, [_observation("specific_rotation", 52.7)]))
+    solution = solve(over_scope(HEX, [_observation("specific_rotation", 52.7)]))
     html = solution_html(solution)
     assert html.count('class="ss-prob"') == len(solution.survivors["U"])
     text = solution_text(solution)

@@ -17,6 +17,8 @@ from __future__ import annotations
 
 import html
 import re
+from collections.abc import Mapping
+from typing import Any
 
 __all__ = [
     "TERMS",
@@ -117,33 +119,33 @@ UNITS: dict[str, str] = {
 }
 
 
+def _looked_up(text: str, *tables: Mapping[Any, str]) -> str:
+    """``text`` as the first of ``tables`` that lists it names it, else with underscores as spaces."""
+    for table in tables:
+        if text in table:
+            return table[text]
+    return text.replace("_", " ")
+
+
 def term(word: object) -> str:
     """The chemist's words for an identifier (``"methyl_pyranoside"`` -> ``"methyl pyranoside"``).
 
     Identifiers not listed come back with underscores as spaces; anything else unchanged.
     """
     text = str(word)
-    if text in TERMS:
-        return TERMS[text]
-    if text in KIND_NAMES:
-        return KIND_NAMES[text]
-    return text.replace("_", " ")
+    return _looked_up(text, TERMS, KIND_NAMES)
 
 
 def kind_name(kind: str) -> str:
     """The name of an observation kind (``"same_product"`` -> ``"product comparison"``)."""
-    return KIND_NAMES.get(kind, kind.replace("_", " "))
+    return _looked_up(kind, KIND_NAMES)
 
 
 def field_name(kind: str, field: str) -> str:
     """The label of a field of ``kind`` (``("periodate", "co2")`` -> ``"CO₂ formed"``)."""
     if (kind, field) in FIELD_NAMES:
         return FIELD_NAMES[(kind, field)]
-    if field in FIELD_NAMES:
-        return FIELD_NAMES[field]
-    if field in TERMS:
-        return TERMS[field]
-    return field.replace("_", " ")
+    return _looked_up(field, FIELD_NAMES, TERMS)
 
 
 def value_text(value: object) -> str:
