@@ -142,6 +142,8 @@ SMALL = [
     {"carbons": [5], "carbonyl": ["aldose"]},
     {"carbons": [4, 5]},
     {"carbons": [5, 6], "carbonyl": ["aldose"], "series": ["D"]},
+    # N-acetyl pentoses: no osazone is predicted for them (doubtful), so a relation on one keeps it
+    {"carbons": [5], "carbonyl": ["aldose"], "series": ["D"], "modifications": ["none", "acetamido:2"]},
 ]
 UNARY = st.one_of(
     st.builds(lambda v: {"kind": "aldaric_acid", "optically_active": v}, st.booleans()),
@@ -221,6 +223,28 @@ _HEXOSES = {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}
 @example(project([{"id": "U0", "scope": _HEXOSES}, {"id": "U1", "scope": _HEXOSES}], _PARALLEL))
 @example(project([{"id": "U0", "scope": _HEXOSES}, {"id": "U1", "scope": _HEXOSES}], _PARALLEL[1:]))
 @example(project([{"id": "U0", "scope": _HEXOSES}, {"id": "U1", "scope": _HEXOSES}], _PARALLEL[::2]))
+@example(
+    project(
+        [{"id": "U0", "scope": SMALL[-1]}, {"id": "U1", "scope": SMALL[-1]}, {"id": "U2", "scope": SMALL[1]}],
+        [
+            {
+                "id": "E0",
+                "kind": "same_product",
+                "reaction": "osazone",
+                "relation": "identical",
+                "members": ["U0", "U1"],
+            },
+            {
+                "id": "E1",
+                "kind": "same_product",
+                "reaction": "osazone",
+                "relation": "enantiomeric",
+                "members": ["U1", "U2"],
+            },
+            {"id": "E2", "kind": "different", "members": ["U0", "U1"]},
+        ],
+    )
+)
 def test_survivors_equal_brute_force_enumeration(p):
     # exactness: survivors = candidates in at least one joint assignment (issue 4)
     expected, solutions = brute_force(p)

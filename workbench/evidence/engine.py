@@ -29,7 +29,7 @@ from workbench.chem.predictions import predict as record_of
 from workbench.chem.smiles import mirror_smiles
 from workbench.evidence import tables
 from workbench.evidence.conflicts import conflict_sets
-from workbench.evidence.network import Binary, components, enumerate_solutions, find_solution, supported_domains
+from workbench.evidence.network import WILD, Binary, components, enumerate_solutions, find_solution, supported_domains
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import Verdict, fits, passes, product_key
 from workbench.evidence.posterior import (
@@ -185,6 +185,7 @@ def _extension_parent(chain: Chain) -> Chain | None:
     return reactions.extension_parent(chain)
 
 
+@functools.cache
 def _doubtful(reaction: str, chain: Chain) -> bool:
     """No prediction for ``chain``'s product (the chemistry is doubtful): a relation on it keeps the candidate."""
     return record_of(chain).uncertain(reaction) is not None
@@ -225,14 +226,21 @@ def _gives(reaction: str):
 
 
 def _product_test(reaction: str, relation: str):
+    """The pair test of a relation between products (:func:`reactions.relation_of_sets`, read per relation:
+    a shared product makes them identical; otherwise a product mirroring one of the other's, enantiomeric)."""
+
     def test(x: Chain, y: Chain) -> bool:
         kx, ky = product_key(reaction, x), product_key(reaction, y)
         if kx is None or ky is None:
             return _doubtful(reaction, x) or _doubtful(reaction, y)
-        rel = reactions.relation_of_sets(kx, ky)
+        shared = not kx.isdisjoint(ky)
+        if relation == "identical":
+            return shared
         if relation == "different":
-            return rel != "identical"
-        return rel == relation
+            return not shared
+        if relation == "enantiomeric":
+            return not shared and not kx.isdisjoint(_mirror_key(reaction, y))
+        return reactions.relation_of_sets(kx, ky) == relation
 
     return test
 
@@ -253,21 +261,19 @@ def constraints_of(project: Project, obs: Observation) -> tuple[list[Binary], di
         names = [ref(m) for m in obs.members]
         test = _product_test(obs.reaction, obs.relation)
         tokens = mirrored = None
-        scopes = [project.unknown(m).scope for m in obs.members if m in project.unknown_ids]
-        wild = any(_doubtful(obs.reaction, c) for s in scopes for c in catalogue(s))
-        wild = wild or any(_doubtful(obs.reaction, c) for c in fixed.values())
-        if obs.relation == "identical" and not wild:  # doubtful products match anything: no index
+        # a doubtful product matches anything: its compound is indexed as a partner of every value
+        if obs.relation == "identical":
 
             def tokens(c: Chain, r: str = obs.reaction):
-                return product_key(r, c) or ()
+                return (WILD,) if _doubtful(r, c) else (product_key(r, c) or ())
 
-        elif obs.relation == "enantiomeric" and not wild:  # index the mirror images: no scan of every pair
+        elif obs.relation == "enantiomeric":  # index the mirror images: no scan of every pair
 
             def tokens(c: Chain, r: str = obs.reaction):
-                return product_key(r, c) or ()
+                return (WILD,) if _doubtful(r, c) else (product_key(r, c) or ())
 
             def mirrored(c: Chain, r: str = obs.reaction):
-                return _mirror_key(r, c)
+                return (WILD,) if _doubtful(r, c) else _mirror_key(r, c)
 
         # one product per compound: identity is transitive, so a chain of pairs says it all
         transitive = obs.relation == "identical" and obs.reaction != "alditol"

@@ -20,9 +20,53 @@ from dataclasses import dataclass
 
 from workbench.chem.chain import Chain
 
-__all__ = ["Binary", "arc_consistent", "find_solution", "supported_domains"]
+__all__ = ["WILD", "Binary", "TokenIndex", "arc_consistent", "find_solution", "supported_domains"]
 
 Domains = dict[str, list[Chain]]
+
+
+class _Wild:
+    """The token of a value that may pair with any value (e.g. a doubtful product, which matches anything)."""
+
+    def __repr__(self) -> str:
+        return "WILD"
+
+
+WILD: Hashable = _Wild()
+
+
+class TokenIndex:
+    """Values of one end of a constraint by token, to find a value's possible partners without a scan.
+
+    A value whose tokens hold :data:`WILD` is a possible partner of every
+    value, and every value is a possible partner of it.
+    """
+
+    def __init__(self, values: Iterable[Chain], tokens: Callable[[Chain], Iterable[Hashable]]) -> None:
+        self.values = list(values)
+        self.buckets: dict[Hashable, list[Chain]] = defaultdict(list)
+        self.wild: list[Chain] = []
+        for y in self.values:
+            ts = tuple(tokens(y))
+            if WILD in ts:
+                self.wild.append(y)
+                continue
+            for t in ts:
+                self.buckets[t].append(y)
+
+    def partners(self, tokens: Iterable[Hashable]) -> Iterator[Chain]:
+        """The indexed values that may pair with a value of these tokens (each once)."""
+        ts = tuple(tokens)
+        if WILD in ts:
+            yield from self.values
+            return
+        seen: set[Chain] = set()
+        for t in ts:
+            for y in self.buckets.get(t, ()):
+                if y not in seen:
+                    seen.add(y)
+                    yield y
+        yield from self.wild
 
 
 @dataclass(frozen=True)
@@ -30,8 +74,9 @@ class Binary:
     """A binary constraint ``test(value_of_a, value_of_b)`` from observation ``source``.
 
     ``tokens_a``/``tokens_b``, when given, map a value to hashable tokens such
-    that the test can only hold when the token sets intersect; they let the
-    solver find supports through an index instead of a scan. ``viable``, when
+    that the test can only hold when the token sets intersect or one of them
+    holds :data:`WILD`; they let the solver find supports through an index
+    (:class:`TokenIndex`) instead of a scan. ``viable``, when
     given, is a test every value at either end must pass for the constraint to
     hold at all (e.g. "gives the product"); values failing it are dropped
     without a scan.
@@ -66,12 +111,9 @@ def _revise(domains: Domains, var: str, c: Binary) -> bool:
         others = [y for y in others if c.viable(y)]
         mine = [x for x in mine if c.viable(x)] if others else []
     if mine_tokens is not None and their_tokens is not None:
-        index: dict[Hashable, list[Chain]] = defaultdict(list)
-        for y in others:
-            for t in their_tokens(y):
-                index[t].append(y)
+        index = TokenIndex(others, their_tokens)
         for x in mine:
-            if any(c.holds(var, x, y) for t in mine_tokens(x) for y in index.get(t, ())):
+            if any(c.holds(var, x, y) for y in index.partners(mine_tokens(x))):
                 kept.append(x)
     else:
         for x in mine:
@@ -401,16 +443,12 @@ class _WitnessFinder:
         self.constraints = constraints
         self.by_var = by_var
         self.alive = {v: set(d) for v, d in work.items()}
-        self.index: dict[tuple[int, str], dict[Hashable, list[Chain]]] = {}
+        self.index: dict[tuple[int, str], TokenIndex] = {}
         for c in constraints:
             if c.tokens_a is None or c.tokens_b is None:
                 continue
             for end, tokens in ((c.a, c.tokens_a), (c.b, c.tokens_b)):
-                table: dict[Hashable, list[Chain]] = defaultdict(list)
-                for x in work[end]:
-                    for t in tokens(x):
-                        table[t].append(x)
-                self.index[(id(c), end)] = table
+                self.index[(id(c), end)] = TokenIndex(work[end], tokens)
 
     def sync(self) -> None:
         """Take over the values removed from the shared domains since the last call."""
@@ -436,13 +474,8 @@ class _WitnessFinder:
             if o in assignment and (id(c), var) in self.index:
                 tokens = c.tokens_a if o == c.a else c.tokens_b
                 assert tokens is not None
-                seen: set[Chain] = set()
-                table = self.index[(id(c), var)]
-                for t in tokens(assignment[o]):
-                    for y in table.get(t, ()):
-                        if y not in seen and y in self.alive[var]:
-                            seen.add(y)
-                            yield y
+                alive = self.alive[var]
+                yield from (y for y in self.index[(id(c), var)].partners(tokens(assignment[o])) if y in alive)
                 return
         yield from (y for y in self.work[var] if y in self.alive[var])
 

@@ -49,7 +49,7 @@ from dataclasses import dataclass, field
 
 from workbench.chem.chain import Chain
 from workbench.evidence import tables
-from workbench.evidence.network import Binary, components, enumerate_solutions
+from workbench.evidence.network import Binary, TokenIndex, components, enumerate_solutions
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import fits, flat_likelihood, weight
 
@@ -66,6 +66,8 @@ __all__ = [
 
 ENUMERATION_LIMIT = 50_000
 PAIR_LIMIT = 4_000_000
+# Pairs of a message summed one by one for values whose products are doubtful (they pair with anything).
+WILD_PAIR_LIMIT = 200_000
 MIN_WRONG = 0.01
 _MAX_DROPPED = 2
 # At most this many drop-one/drop-two hypotheses are weighed when ranking suspects (each is a full
@@ -164,21 +166,11 @@ def _message(edge: _Edge, source: str, belief: dict[Chain, float], target: list[
         target_var = edge.other(source)
         target_tokens = relation.tokens_a if target_var == relation.a else relation.tokens_b
         assert target_tokens is not None
-        index: dict[Hashable, list[Chain]] = defaultdict(list)
-        for x, bx in belief.items():
-            if bx > 0:
-                for t in source_tokens(x):
-                    index[t].append(x)
+        index = TokenIndex((x for x, bx in belief.items() if bx > 0), source_tokens)
+        if index.wild and len(index.wild) * len(target) > WILD_PAIR_LIMIT:
+            raise _TooLarge  # values that pair with anything (doubtful products), too many to sum pair by pair
         for y in target:
-            seen: set[Chain] = set()
-            total = 0.0
-            for t in target_tokens(y):
-                for x in index.get(t, ()):
-                    if x not in seen:
-                        seen.add(x)
-                        if edge.holds(source, x, y):
-                            total += belief[x]
-            out[y] = total
+            out[y] = sum(belief[x] for x in index.partners(target_tokens(y)) if edge.holds(source, x, y))
         return out
     if len(belief) * len(target) > PAIR_LIMIT:
         raise _TooLarge
