@@ -23,7 +23,7 @@ from workbench.evidence.planner import plan
 
 sys.path.insert(0, str(Path(__file__).resolve().parent.parent / "tests"))
 
-from projects import project_dict  # noqa: E402
+from projects import linked_project, project_dict  # noqa: E402
 
 BROAD = {"carbons": [4, 5, 6, 7], "modifications": ["any"]}
 HEXOSES = {"carbons": [5, 6]}
@@ -74,24 +74,6 @@ def cycle_project(size: int = 4, closed: bool = True, relation: str = "enantiome
         [{"id": f"U{i}", "scope": BROAD} for i in range(size)],
         obs,
         f"invented: {size} unknowns, {'a cycle' if closed else 'a path'} of {relation}-osazone relations",
-    )
-
-
-def linked_project(unknowns: int, cycle: bool = True, scope: dict[str, Any] | None = None) -> dict[str, Any]:
-    """Unknowns in a chain of same-osazone relations (eight members each, overlapping by one);
-    a 'different' over the first three closes a cycle."""
-    obs: list[dict[str, Any]] = [{"id": "E0", "kind": "series", "unknown": "U0", "value": "D"}]
-    for k, start in enumerate(range(0, unknowns - 1, 7)):
-        members = [f"U{i}" for i in range(start, min(start + 8, unknowns))]
-        obs.append(
-            {"id": f"R{k}", "kind": "same_product", "reaction": "osazone", "members": members, "relation": "identical"}
-        )
-    if cycle:
-        obs.append({"id": "X", "kind": "different", "members": ["U0", "U1", "U2"]})
-    return project_dict(
-        [{"id": f"U{i}", "scope": scope or {"carbons": [6]}} for i in range(unknowns)],
-        obs,
-        f"invented: {unknowns} linked unknowns",
     )
 
 

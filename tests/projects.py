@@ -39,6 +39,25 @@ def over_scope(
     return project([{"id": uid, "scope": scope} for uid in ids], observations, title)
 
 
+def linked_project(unknowns: int, cycle: bool = True, scope: Record | None = None) -> Record:
+    """An invented project: ``unknowns`` unknowns over ``scope`` (default: six carbons) in a chain of
+    same-osazone relations (eight members each, overlapping by one); a 'different' over the first three
+    closes a cycle."""
+    obs: list[Record] = [{"id": "E0", "kind": "series", "unknown": "U0", "value": "D"}]
+    for k, start in enumerate(range(0, unknowns - 1, 7)):
+        members = [f"U{i}" for i in range(start, min(start + 8, unknowns))]
+        obs.append(
+            {"id": f"R{k}", "kind": "same_product", "reaction": "osazone", "members": members, "relation": "identical"}
+        )
+    if cycle:
+        obs.append({"id": "X", "kind": "different", "members": ["U0", "U1", "U2"]})
+    return project_dict(
+        [{"id": f"U{i}", "scope": scope or {"carbons": [6]}} for i in range(unknowns)],
+        obs,
+        f"invented: {unknowns} linked unknowns",
+    )
+
+
 def residue_periodate(oid: str, periodate: float, formic_acid: float, formaldehyde: float = 0.0) -> Record:
     """A periodate record on residue R1: IO4- consumed, HCOOH and HCHO formed (mol/mol)."""
     return {

@@ -11,6 +11,7 @@ names independently of this code, and against RDKit's CIP labeller.
 
 from __future__ import annotations
 
+import projects
 import pytest
 from rdkit import Chem
 from rdkit.Chem import rdCIPLabeler
@@ -18,7 +19,7 @@ from rdkit.Chem import rdCIPLabeler
 from workbench.chem import from_name, resolve
 from workbench.chem.smiles import RingForm, reference_atom, to_smiles
 from workbench.conformers import ring_couplings
-from workbench.evidence import project_from_dict, solve
+from workbench.evidence import solve
 
 # Two-prefix aldoses and ketoses (IUPAC-IUBMB 1996, 2-Carb-8.3 style names).
 TWO_PREFIX = [
@@ -113,24 +114,20 @@ def test_alpha_gluco_heptopyranose_couples_like_alpha_glucose():
 def test_observed_alpha_coupling_keeps_the_true_heptose():
     # A true alpha J1,2 of 3.7 Hz (alpha-Glcp-like, REFERENCE_VALUES.md [memory]) must not leave
     # L-glycero-D-gluco-heptose out (the heptose had 0 of 32 survivors before 2-Carb-6.2 was applied).
-    project = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "heptose coupling",
-            "unknowns": [{"id": "H", "scope": {"carbons": [7], "carbonyl": ["aldose"], "series": ["L"]}}],
-            "observations": [
-                {
-                    "id": "J",
-                    "kind": "coupling_constant",
-                    "unknown": "H",
-                    "form": "alpha_pyranose",
-                    "pair": "H1-H2",
-                    "value": 3.7,
-                    "tolerance": 1.0,
-                },
-            ],
-        }
+    project = projects.project(
+        [{"id": "H", "scope": {"carbons": [7], "carbonyl": ["aldose"], "series": ["L"]}}],
+        [
+            {
+                "id": "J",
+                "kind": "coupling_constant",
+                "unknown": "H",
+                "form": "alpha_pyranose",
+                "pair": "H1-H2",
+                "value": 3.7,
+                "tolerance": 1.0,
+            },
+        ],
+        title="heptose coupling",
     )
     solution = solve(project)
     assert from_name("L-glycero-D-gluco-heptose") in solution.survivors["H"]

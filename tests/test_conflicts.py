@@ -10,6 +10,8 @@ import itertools
 import random
 import sys
 
+from projects import linked_project
+
 from workbench.evidence.conflicts import conflict_sets, minimal_conflict
 from workbench.evidence.engine import solve
 from workbench.evidence.project import project_from_dict
@@ -64,28 +66,11 @@ def test_a_conflict_among_a_thousand_items_takes_few_checks():
     assert progress and progress[-1][1] == len(calls)
 
 
-def _linked(n: int) -> dict:
-    obs: list[dict] = [{"id": "E0", "kind": "series", "unknown": "U0", "value": "D"}]
-    for k, start in enumerate(range(0, n - 1, 7)):
-        members = [f"U{i}" for i in range(start, min(start + 8, n))]
-        obs.append(
-            {"id": f"R{k}", "kind": "same_product", "reaction": "osazone", "members": members, "relation": "identical"}
-        )
-    obs.append({"id": "X", "kind": "different", "members": ["U0", "U1", "U2"]})
-    return {
-        "format": "stereosieve-project",
-        "version": 1,
-        "title": "invented",
-        "observations": obs,
-        "unknowns": [{"id": f"U{i}", "scope": {"carbons": [6]}} for i in range(n)],
-    }
-
-
 def test_many_linked_unknowns_with_a_cycle_need_no_deep_recursion():
     # A hexose osazone is shared by the two C-2 epimeric aldoses and the 2-ketose (e.g. D-glucose,
     # D-mannose, D-fructose: Fischer; common textbook fact), so each of the 4 D-osazones admits three
     # different unknowns: U0 (series D) may be any of the 8 D-aldohexoses and 4 D-2-ketohexoses.
-    project = project_from_dict(_linked(300))
+    project = project_from_dict(linked_project(300))
     limit = sys.getrecursionlimit()
     sys.setrecursionlimit(250)  # a recursive search over 300 linked unknowns would exceed this
     try:

@@ -11,6 +11,7 @@ from html.parser import HTMLParser
 from pathlib import Path
 
 import pytest
+from projects import project_dict
 
 from workbench.cli import main
 from workbench.display.board import board_html, solution_html
@@ -34,13 +35,7 @@ def _project(contradictory: bool = False) -> dict:
     ]
     if contradictory:
         obs.append({"id": "E3" + MARKUP, "kind": "carbon_count", "unknown": UID, "value": 5})
-    return {
-        "format": "stereosieve-project",
-        "version": 1,
-        "title": HOSTILE,
-        "unknowns": [{"id": UID, "label": HOSTILE, "scope": {"carbons": [5, 6]}}],
-        "observations": obs,
-    }
+    return project_dict([{"id": UID, "label": HOSTILE, "scope": {"carbons": [5, 6]}}], obs, HOSTILE)
 
 
 class _Tags(HTMLParser):

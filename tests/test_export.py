@@ -12,8 +12,8 @@ import math
 import shutil
 from pathlib import Path
 
+import projects
 import pytest
-from projects import FOUR_LINKED_GLUCOSE
 from rdkit import Chem
 
 from workbench.cli import main
@@ -84,13 +84,9 @@ def test_deoxyhexose_sample_exports_l_fucose_as_opsin_draws_it(tmp_path, capsys)
 
 
 def test_csv_has_the_contract_columns_and_uniform_shares_without_weights():
-    project = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "unknowns": [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}}],
-            "observations": [{"id": "E1", "kind": "aldaric_acid", "unknown": "U", "optically_active": False}],
-        }
+    project = projects.project(
+        [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}}],
+        [{"id": "E1", "kind": "aldaric_acid", "unknown": "U", "optically_active": False}],
     )
     rows = list(csv.DictReader(io.StringIO(csv_text(survivor_rows(solve(project))))))
     # meso aldaric acids among the D-aldohexoses: allaric and galactaric (mucic) acid (Carey ch. 25 [memory])
@@ -125,20 +121,14 @@ def test_export_command_refuses_bad_outputs_and_contradictions(tmp_path, capsys)
 
 
 def test_csv_cells_that_look_like_formulas_stay_text():
-    project = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "unknowns": [{"id": "=1+1", "scope": {"carbons": [3], "carbonyl": ["aldose"], "series": ["D"]}}],
-        }
-    )
+    project = projects.project([{"id": "=1+1", "scope": {"carbons": [3], "carbonyl": ["aldose"], "series": ["D"]}}], [])
     (row,) = csv.DictReader(io.StringIO(csv_text(survivor_rows(solve(project)))))
     # the one D-aldotriose is D-glyceraldehyde (common practice); the id is kept as text, not a formula
     assert row["unknown"] == "'=1+1" and row["name"] == "D-glyceraldehyde"
 
 
 def test_residue_survivors_carry_their_condensed_name_and_the_released_sugar():
-    project = project_from_dict(FOUR_LINKED_GLUCOSE)
+    project = project_from_dict(projects.FOUR_LINKED_GLUCOSE)
     rows = survivor_rows(solve(project))
     # 1,4,5-tri-O-acetyl-2,3,6-tri-O-methyl-glucitol: a 4-linked glucopyranose or a 5-linked glucofuranose
     # (methylation analysis, Bjoerndal et al. 1970 [memory]; REFERENCE_VALUES.md "Glycan residues")

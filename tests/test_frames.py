@@ -15,8 +15,8 @@ import sys
 from pathlib import Path
 
 import pandas as pd
+import projects
 import pytest
-from projects import FOUR_LINKED_GLUCOSE_OXIDISED
 from rdkit import Chem
 
 from workbench.chem import Scope, resolve
@@ -135,14 +135,10 @@ def test_survivors_frame_identity_agrees_with_rdkit(two_left):
 
 
 def test_survivors_frame_flags_candidates_without_a_published_rotation():
-    project = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "rotation only",
-            "unknowns": [{"id": "G", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}}],
-            "observations": [{"id": "E1", "kind": "specific_rotation", "unknown": "G", "value": 80.2, "tolerance": 3}],
-        }
+    project = projects.project(
+        [{"id": "G", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}}],
+        [{"id": "E1", "kind": "specific_rotation", "unknown": "G", "value": 80.2, "tolerance": 3}],
+        title="rotation only",
     )
     frame = solve(project).to_frame().set_index("name")
     # D-galactose +80.2 is published (Bruice 8th ed., problems 20.65-66): it fits and is not flagged.
@@ -158,7 +154,7 @@ def test_survivors_frame_flags_candidates_without_a_published_rotation():
 # ------------------------------------------------------------------ glycan residues
 @pytest.fixture(scope="module")
 def four_linked():
-    return solve(project_from_dict(FOUR_LINKED_GLUCOSE_OXIDISED))
+    return solve(project_from_dict(projects.FOUR_LINKED_GLUCOSE_OXIDISED))
 
 
 def test_residues_frame_lists_the_surviving_residue_candidates(four_linked):

@@ -6,24 +6,17 @@ import math
 from pathlib import Path
 
 import pytest
+from projects import over_scope
 
 from workbench.chem import reactions, resolve
-from workbench.evidence import load_project, project_from_dict, solve
+from workbench.evidence import load_project, solve
 from workbench.evidence.planner import entropy_bits, plan
 
 DATA = Path(__file__).parent / "data"
 
 
 def hexose_project(observations=()):
-    return project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "title": "a D-aldohexose",
-            "unknowns": [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}}],
-            "observations": list(observations),
-        }
-    )
+    return over_scope({"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}, observations, title="a D-aldohexose")
 
 
 def find(p, kind, **fields):

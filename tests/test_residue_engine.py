@@ -41,13 +41,9 @@ def test_four_linked_pyranose_and_five_linked_furanose_stay_ambiguous():
     best = plan(project).experiments[0]
     assert best.kind == "ring_form" and len(best.outcomes) == 2
     separated = project.with_observation(
-        project_from_dict(
-            {
-                "format": "stereosieve-project",
-                "version": 1,
-                "unknowns": [{"id": "R1", "type": "residue"}],
-                "observations": [{"id": "E5", "kind": "ring_form", "unknown": "R1", "value": "pyranose"}],
-            }
+        projects.project(
+            [{"id": "R1", "type": "residue"}],
+            [{"id": "E5", "kind": "ring_form", "unknown": "R1", "value": "pyranose"}],
         ).observations[0]
     )
     assert _names(solve(separated), "R1") == ["->4)-alpha-D-Glcp-(1->"]
@@ -112,16 +108,14 @@ def test_sugar_level_kinds_judge_the_released_sugar():
 
 
 def test_solve_json_carries_the_residue_fields(tmp_path, capsys):
-    data = {
-        "format": "stereosieve-project",
-        "version": 1,
-        "title": "json",
-        "unknowns": [{"id": "R1", "type": "residue", "scope": {"sugars": ["L-rhamnose"], "ring": ["pyranose"]}}],
-        "observations": [
+    data = projects.project_dict(
+        [{"id": "R1", "type": "residue", "scope": {"sugars": ["L-rhamnose"], "ring": ["pyranose"]}}],
+        [
             {"id": "E1", "kind": "methylation_analysis", "unknown": "R1", "methyl": [3, 4], "acetyl": [1, 2, 5]},
             {"id": "E2", "kind": "anomer", "unknown": "R1", "value": "alpha"},
         ],
-    }
+        title="json",
+    )
     path = tmp_path / "p.json"
     path.write_text(json.dumps(data), encoding="utf-8")
     assert main(["solve", str(path), "--json"]) == 0

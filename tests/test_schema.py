@@ -55,10 +55,15 @@ def test_every_project_file_validates(validator, path):
     assert list(validator.iter_errors(json.loads(dumps_project(load_project(path))))) == []
 
 
+def _called(node: ast.Call) -> str:
+    """The name a call is made by: ``f`` for ``f(...)`` and for ``module.f(...)``."""
+    return getattr(node.func, "id", "") or getattr(node.func, "attr", "")
+
+
 def _projects_written_in_tests() -> list[tuple[str, dict]]:
     """Project files spelt out in the test modules: literal dicts with the format key, literal
-    ``project(unknowns, observations)`` calls (the helper of tests/projects.py), and the project dicts
-    that tests/projects.py shares between modules."""
+    ``project(unknowns, observations)`` and ``project_dict(...)`` calls (the helpers of tests/projects.py),
+    and the project dicts that tests/projects.py shares between modules."""
     found = [
         (f"projects.py:{name}", value)
         for name, value in vars(projects).items()
@@ -71,7 +76,9 @@ def _projects_written_in_tests() -> list[tuple[str, dict]]:
                     data = ast.literal_eval(node)
                     if isinstance(data, dict) and data.get("format") == "stereosieve-project":
                         found.append((f"{path.name}:{node.lineno}", data))
-                elif isinstance(node, ast.Call) and getattr(node.func, "id", "") == "project" and len(node.args) == 2:
+                elif (
+                    isinstance(node, ast.Call) and _called(node) in ("project", "project_dict") and len(node.args) == 2
+                ):
                     unknowns, observations = (ast.literal_eval(a) for a in node.args)
                     data = {"format": "stereosieve-project", "version": 1, "title": "test"}
                     found.append(

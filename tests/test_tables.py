@@ -12,6 +12,7 @@ import subprocess
 import sys
 from pathlib import Path
 
+import projects
 import pytest
 
 from workbench.chem import Scope
@@ -19,7 +20,6 @@ from workbench.chem.catalogue import catalogue
 from workbench.evidence import outcomes, tables
 from workbench.evidence.engine import solve
 from workbench.evidence.observations import observation_from_dict
-from workbench.evidence.project import project_from_dict
 
 ROOT = Path(__file__).resolve().parent.parent
 BROAD = Scope(carbons=(3, 4, 5, 6, 7, 8, 9), modifications=("any",))
@@ -148,13 +148,9 @@ def test_judging_each_distinct_value_once_keeps_exactly_what_fits_keeps(fields):
 
 def test_a_solve_through_the_tables_matches_judging_every_candidate():
     # the engine's survivors equal a plain filter by fits, observation by observation
-    project = project_from_dict(
-        {
-            "format": "stereosieve-project",
-            "version": 1,
-            "unknowns": [{"id": "U1", "scope": {"carbons": [5, 6], "modifications": ["any"]}}],
-            "observations": [{"id": f"E{i}", "unknown": "U1", **f} for i, f in enumerate(LOGIC[:2] + LOGIC[4:5])],
-        }
+    project = projects.project(
+        [{"id": "U1", "scope": {"carbons": [5, 6], "modifications": ["any"]}}],
+        [{"id": f"E{i}", "unknown": "U1", **f} for i, f in enumerate(LOGIC[:2] + LOGIC[4:5])],
     )
     expected = list(catalogue(project.unknown("U1").scope))
     for obs in project.observations:
