@@ -12,7 +12,6 @@ import json
 import subprocess
 import sys
 
-import projects
 import pytest
 
 from workbench.chem import from_name, from_smiles, resolve, systematic_name, to_smiles
@@ -157,20 +156,24 @@ def test_predict_command_answers_for_the_glycoside():
 
 def test_alditol_member_stands_for_itself_in_alditol_relations():
     # D-glucose and L-gulose share their alditol (REFERENCE_VALUES.md): a project may name it directly
-    from workbench.evidence import solve
+    from workbench.evidence import project_from_dict, solve
 
-    project = projects.project(
-        [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"]}}],
-        [
-            {
-                "id": "E1",
-                "kind": "same_product",
-                "reaction": "alditol",
-                "members": ["U", "D-glucitol"],
-                "relation": "identical",
-            },
-        ],
-        title="alditol member",
+    project = project_from_dict(
+        {
+            "format": "stereosieve-project",
+            "version": 1,
+            "title": "alditol member",
+            "unknowns": [{"id": "U", "scope": {"carbons": [6], "carbonyl": ["aldose"]}}],
+            "observations": [
+                {
+                    "id": "E1",
+                    "kind": "same_product",
+                    "reaction": "alditol",
+                    "members": ["U", "D-glucitol"],
+                    "relation": "identical",
+                },
+            ],
+        }
     )
     survivors = sorted(display_name(c) for c in solve(project).survivors["U"])
     assert survivors == ["D-glucose", "L-gulose"]
