@@ -221,6 +221,16 @@ def _brute_force(project) -> dict[str, dict]:
     return {u: {c: v / sum(t.values()) for c, v in t.items()} for u, t in totals.items()}
 
 
+def _solve_against_brute_force(project):
+    """The solution of ``project``, its marginals checked against :func:`_brute_force`."""
+    solution = solve(project)
+    expected = _brute_force(project)
+    for u in project.unknown_ids:
+        for chain, p in expected[u].items():
+            assert solution.probability(u, chain) == pytest.approx(p, abs=1e-9), (u, display_name(chain))
+    return solution
+
+
 def _linked(extra: list[dict]):
     scope = {"carbons": [6], "carbonyl": ["aldose", "ketose"], "series": ["D"]}
     observations = [
@@ -236,12 +246,7 @@ def _linked(extra: list[dict]):
 @pytest.mark.parametrize("cyclic", [False, True])
 def test_joint_probabilities_equal_brute_force_enumeration(cyclic):
     extra = [{"id": "R3", "kind": "different", "members": ["A", "C"]}] if cyclic else []
-    project = _linked(extra)
-    solution = solve(project)
-    expected = _brute_force(project)
-    for u in project.unknown_ids:
-        for chain, p in expected[u].items():
-            assert solution.probability(u, chain) == pytest.approx(p, abs=1e-9), (u, display_name(chain))
+    solution = _solve_against_brute_force(_linked(extra))
     method = solution.posterior_methods["A"]
     assert ("enumeration" in method) if cyclic else ("sum-product" in method)
 
@@ -257,12 +262,7 @@ def test_a_cycle_with_trees_hanging_off_it_is_summed_exactly():
         {"id": "R5", "kind": "same_product", "reaction": "osazone", "members": ["D", "E"], "relation": "identical"},
         {"id": "Q5", "kind": "specific_rotation", "unknown": "E", "value": 20.0, "reliability": 0.7},
     ]
-    project = project_from_dict(base)
-    solution = solve(project)
-    expected = _brute_force(project)
-    for u in project.unknown_ids:
-        for chain, p in expected[u].items():
-            assert solution.probability(u, chain) == pytest.approx(p, abs=1e-9), (u, display_name(chain))
+    solution = _solve_against_brute_force(project_from_dict(base))
     assert "3 unknowns on cycles" in solution.posterior_methods["E"]
 
 
