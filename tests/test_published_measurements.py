@@ -187,6 +187,10 @@ COUPLINGS = [
     ("L-arabinose", PENT_ANY, "alpha_pyranose", "H1-H2", 7.8, "memory"),
     ("L-arabinose", PENT_ANY, "beta_pyranose", "H1-H2", 3.6, "memory"),
     ("D-lyxose", PENT_ANY, "beta_pyranose", "H1-H2", 1.0, "memory"),
+    ("D-lyxose", PENT_ANY, "alpha_pyranose", "H1-H2", 4.8, "memory"),  # both chairs populated
+    ("D-ribose", PENT_ANY, "beta_pyranose", "H1-H2", 6.5, "memory"),  # both chairs populated
+    ("L-glycero-D-manno-heptose", HEPT, "alpha_pyranose", "H1-H2", 1.8, "memory"),  # as alpha-Manp
+    ("D-glycero-D-galacto-heptose", HEPT, "beta_pyranose", "H1-H2", 7.9, "memory"),  # as beta-Galp
 ]
 
 # ------------------------------------------------------------------ periodate (mol/mol)
@@ -224,6 +228,12 @@ PERIODATE = [
     ("D-xylose", PENT_ANY, "methyl_furanoside", (1, 0, 0), "jackson_hudson"),
     ("D-ribose", PENT_ANY, "methyl_furanoside", (1, 0, 0), "jackson_hudson"),
     ("D-glycero-D-gulo-heptose", HEPT, "methyl_pyranoside", (3, 1, 1), "memory"),  # ring triol + C6-C7 diol
+    ("D-glycero-D-gulo-heptose", HEPT, "free", (6, 6, 1), "periodate_practice"),  # aldoses: n-1, n-1, 1
+    ("D-glycero-D-gulo-heptose", HEPT, "alditol", (6, 5, 2), "periodate_practice"),  # alditols: n-1, n-2, 2
+    ("L-sorbose", HEX_ANY, "free", (5, 3, 2, 1), "periodate_practice"),  # as every 2-ketohexose
+    ("D-erythrose", SHORT, "free", (3, 3, 1), "periodate_practice"),
+    ("D-glyceraldehyde", SHORT, "free", (2, 2, 1), "periodate_practice"),
+    ("2-acetamido-2-deoxy-D-glucose", HEX_ANY, "alditol", (3, 2, 1), "memory"),  # C-1/C-2 is no diol
 ]
 
 # ------------------------------------------------------------------ glycan residues
@@ -249,6 +259,34 @@ RESIDUES = [
     ("terminal xylose", "D-xylose", "pyranose", "beta", (), (2, 3, 4), (1, 5), "ethylene glycol", (2, 1, 0)),
     ("terminal fucose", "L-fucose", "pyranose", "alpha", (), (2, 3, 4), (1, 5), "propane-1,2-diol", (2, 1, 0)),
     ("rhamnogalacturonan", "L-rhamnose", "pyranose", "alpha", (2,), (3, 4), (1, 2, 5), "propane-1,2-diol", (1, 0, 0)),
+    # 2-acetamido sugars: the N-methylacetamido group at C-2 carries no O-methyl; a 4- or 3-linked GlcNAc has
+    # no free vicinal diol and survives periodate (chitin, hyaluronan)
+    (
+        "chitin",
+        "2-acetamido-2-deoxy-D-glucose",
+        "pyranose",
+        "beta",
+        (4,),
+        (3, 6),
+        (1, 4, 5),
+        "2-acetamido-2-deoxy-D-glucose",
+        (0, 0, 0),
+    ),
+    (
+        "hyaluronan GlcNAc",
+        "2-acetamido-2-deoxy-D-glucose",
+        "pyranose",
+        "beta",
+        (3,),
+        (4, 6),
+        (1, 3, 5),
+        "2-acetamido-2-deoxy-D-glucose",
+        (0, 0, 0),
+    ),
+    # uronic acids: methylation products depend on when the carboxyl is reduced (not compared); the Smith
+    # fragment of a 4-linked one is an acid, no neutral polyol ("none")
+    ("homogalacturonan", "D-galacturonic acid", "pyranose", "alpha", (4,), None, None, "none", (1, 0, 0)),
+    ("hyaluronan GlcA", "D-glucuronic acid", "pyranose", "beta", (4,), None, None, "none", (1, 0, 0)),
 ]
 GLYCAN_SUGARS = [
     "D-glucose",
@@ -262,6 +300,7 @@ GLYCAN_SUGARS = [
     "L-galactose",
     "D-arabinose",
     "D-glucuronic acid",
+    "D-galacturonic acid",
     "2-acetamido-2-deoxy-D-glucose",
 ]
 
@@ -395,19 +434,22 @@ def test_anomeric_rotations_agree_with_the_predicted_anomer_ratio(name, alpha, b
 def test_published_linkage_analysis_keeps_and_ranks_its_residue(row):
     polymer, sugar, ring, anomer, linked, methyl, acetyl, smith, uptake = row
     observations = [
-        {"id": "M", "kind": "methylation_analysis", "unknown": "R", "methyl": list(methyl), "acetyl": list(acetyl)},
         {"id": "S", "kind": "smith_degradation", "unknown": "R", "product": smith},
         {**_periodate("residue", uptake, "P", "R")},
         {"id": "A", "kind": "anomer", "unknown": "R", "value": anomer},
     ]
+    if methyl is not None:
+        methylation = {"id": "M", "kind": "methylation_analysis", "unknown": "R", "methyl": list(methyl)}
+        observations.append({**methylation, "acetyl": list(acetyl)})
     unknown = {"id": "R", "type": "residue", "scope": {"sugars": GLYCAN_SUGARS, "series": ["D", "L"]}}
     for single in observations:
         solution = solve(_project(unknown, [single]))
-        names = {(r.sugar, r.ring, r.anomer, tuple(r.linked)) for r in solution.survivors["R"]}
-        assert (sugar, ring, anomer, linked) in names, f"{polymer}: {single['id']} removed the true residue"
+        names = {(r.chain, r.ring, r.anomer, tuple(r.linked)) for r in solution.survivors["R"]}
+        assert (resolve(sugar), ring, anomer, linked) in names, f"{polymer}: {single['id']} removed the true residue"
     solution = solve(_project(unknown, observations))
     survivors = solution.survivors["R"]
-    true = next(r for r in survivors if (r.sugar, r.ring, r.anomer, tuple(r.linked)) == (sugar, ring, anomer, linked))
+    key = (resolve(sugar), ring, anomer, linked)
+    true = next(r for r in survivors if (r.chain, r.ring, r.anomer, tuple(r.linked)) == key)
     assert _top_or_tied(solution, "R", true)
 
 

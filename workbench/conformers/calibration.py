@@ -83,6 +83,7 @@ CLASSES: dict[str, str] = {
 }
 _MOBILE = ("altro", "ido", "talo", "gulo")
 _RIGID = ("allo", "gluco", "manno", "galacto")
+_PLAIN = {"CHO", "CHOH", "CH2OH"}
 
 # Equilibrium [alpha]D of one sugar from different handbooks differs by 1-2 deg (temperature,
 # concentration) [common practice]; a value recalled from memory gets 10 deg.
@@ -318,10 +319,17 @@ def coupling_class(chain: Chain) -> tuple[str, str]:
     carbons (Haasnoot, de Leeuw and Altona, Tetrahedron 36, 2783, 1980), so an
     unmodified aldoheptose (or longer) uses the class of the aldohexose with
     the same pyranose ring (the configurational prefix of C-2 to C-5, the one
-    next to the stem, 2-Carb-8.3); its anomer ratio stays uncalibrated.
+    next to the stem, 2-Carb-8.3); its anomer ratio stays uncalibrated. A
+    2-acetamido sugar (N-acetyl, otherwise unmodified) uses the amino class:
+    the equation sees the same nitrogen on the ring carbon, so NH3+ and NHAc
+    have the same electronegativity term; its anomer ratio stays uncalibrated
+    (the amino class's bias is that of the protonated amines).
     """
     cls = sugar_class(chain)
     groups = chain.groups
+    acetamido = chain.carbonyl == "aldose" and chain.carbons in (5, 6) and set(groups) - {"CHNHAc"} <= _PLAIN
+    if cls == "other" and acetamido and groups.count("CHNHAc") == 1:
+        return "amino", "coupling calibrated on the amino sugars (the same nitrogen on the ring carbon)"
     if cls == "other" and chain.carbonyl == "aldose" and chain.carbons >= 7 and set(groups[1:-1]) == {"CHOH"}:
         ring_prefix = systematic_name(chain).rsplit("-", 2)[-2]
         if ring_prefix in _RIGID:
