@@ -218,3 +218,57 @@ def test_periodate_of_free_sugar_cleaves_every_bond_between_functional_carbons(c
     bonds = sum(1 for a, b in zip(chain.groups, chain.groups[1:], strict=False) if a in functional and b in functional)
     # one IO4- per cleaved C-C bond between carbons bearing OH, =O or NH2 (REFERENCE_VALUES.md)
     assert periodate_oxidation(chain, "free").periodate == bonds
+
+
+# ------------------------------------------------------------------ uptake alone (products not measured)
+def _uptake_project(unknown: dict, substrate: str, **amounts: float) -> dict:
+    return {
+        "format": "stereosieve-project",
+        "version": 1,
+        "title": "periodate uptake only",
+        "unknowns": [unknown],
+        "observations": [
+            {"id": "P1", "kind": "periodate", "unknown": unknown["id"], "substrate": substrate, **amounts}
+        ],
+    }
+
+
+def test_uptake_alone_is_a_complete_record_and_keeps_the_true_sugar():
+    from workbench.evidence import project_from_dict, solve
+
+    # methyl hexofuranoside 2 IO4-, methyl pentofuranoside 1 (Jackson and Hudson, J. Am. Chem. Soc. 59,
+    # 994, 1937 [memory]): uptake alone keeps the aldohexoses and removes the aldopentoses
+    scope = {"carbons": [5, 6], "carbonyl": ["aldose"]}
+    p = project_from_dict(_uptake_project({"id": "U", "scope": scope}, "methyl_furanoside", periodate=2.0))
+    survivors = solve(p).survivors["U"]
+    assert resolve("D-glucose") in survivors and resolve("D-galactose") in survivors
+    assert not any(c.carbons == 5 for c in survivors)
+    # an open-chain aldohexose consumes 5 (common practice): uptake alone removes every aldopentose (4)
+    q = project_from_dict(_uptake_project({"id": "U", "scope": {"carbons": [5, 6]}}, "free", periodate=5.0))
+    left = solve(q).survivors["U"]
+    assert resolve("D-glucose") in left and not any(c.carbons == 5 and c.carbonyl == "aldose" for c in left)
+
+
+def test_a_measured_product_still_counts_when_another_is_left_out():
+    from workbench.evidence import project_from_dict, solve
+
+    # aldohexose 5 IO4-, 5 HCOOH; 2-ketohexose 5 IO4-, 3 HCOOH (common practice)
+    p = project_from_dict(
+        _uptake_project({"id": "U", "scope": {"carbons": [6]}}, "free", periodate=5.0, formic_acid=3.0)
+    )
+    left = solve(p).survivors["U"]
+    assert resolve("D-fructose") in left and resolve("D-glucose") not in left
+    text = solve(p).trail[0].reasons["U"][resolve("D-glucose")]
+    assert "observed IO4- 5, HCOOH 3" in text and "HCHO" not in text.split("observed")[1]
+
+
+def test_residue_uptake_alone_keeps_the_linkage():
+    from workbench.evidence import project_from_dict, solve
+
+    # a 4-linked hexopyranosyl residue consumes 1 IO4- and gives no formic acid (C-2-C-3 glycol only);
+    # a 6-linked one consumes 2 and gives 1 HCOOH (Hay, Lewis and Smith, Methods Carbohydr. Chem. 5, 357,
+    # 1965 [memory]; common practice)
+    unknown = {"id": "R", "type": "residue", "scope": {"sugars": ["D-glucose"], "ring": ["pyranose"]}}
+    p = project_from_dict(_uptake_project(unknown, "residue", periodate=1.0))
+    names = {r.name for r in solve(p).survivors["R"]}
+    assert "->4)-alpha-D-Glcp-(1->" in names and "->6)-alpha-D-Glcp-(1->" not in names

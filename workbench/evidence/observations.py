@@ -278,8 +278,9 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
                     choices=("free", "alditol", "methyl_pyranoside", "methyl_furanoside", "residue"),
                 ),
                 FieldSpec("periodate", "float", "IO4- consumed", unit="mol/mol", minimum=0),
-                FieldSpec("formic_acid", "float", "HCOOH formed", unit="mol/mol", minimum=0),
-                FieldSpec("formaldehyde", "float", "HCHO formed", unit="mol/mol", minimum=0),
+                # the products are often not measured (uptake alone is a titration): leave them out then
+                FieldSpec("formic_acid", "float", "HCOOH formed", required=False, unit="mol/mol", minimum=0),
+                FieldSpec("formaldehyde", "float", "HCHO formed", required=False, unit="mol/mol", minimum=0),
                 FieldSpec("co2", "float", "CO2 formed", required=False, unit="mol/mol", minimum=0),
                 _sigma("mol/mol"),
                 _tolerance("mol/mol"),

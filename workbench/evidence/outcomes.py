@@ -45,6 +45,7 @@ from __future__ import annotations
 
 import math
 import re
+from collections.abc import Sequence
 from dataclasses import dataclass
 from functools import cache
 from typing import Any
@@ -247,14 +248,19 @@ def outcome_label(kind: str, value: Any) -> str:
     if kind == "specific_rotation" and isinstance(value, tuple):
         return "dextrorotatory (sign only)" if value[1] > 0 else "laevorotatory (sign only)"
     if kind == "periodate":
-        p, f, h, c = value
-        co2 = "" if c is None else f", CO2 {c:g}"
-        return f"IO4- {p:g}, HCOOH {f:g}, HCHO {h:g}{co2}"
+        return periodate_text(value)
     if isinstance(value, (int, float)) and kind in UNITS:
         return quantity_text(kind, float(value))
     if isinstance(value, float):
         return f"{value:.2f}"
     return str(value)
+
+
+def periodate_text(amounts: Sequence[float | None]) -> str:
+    """``IO4- 5, HCOOH 5, HCHO 1`` (mol/mol) for periodate, formic acid, formaldehyde and CO2; amounts
+    not measured (None) are left out."""
+    words = ("IO4-", "HCOOH", "HCHO", "CO2")
+    return ", ".join(f"{w} {a:g}" for w, a in zip(words, amounts, strict=False) if a is not None)
 
 
 def _gauss(d: float, s: float) -> float:
@@ -271,7 +277,7 @@ def flat_likelihood(obs: Observation) -> float:
     """
     kind = obs.KIND
     if kind == "periodate":
-        amounts = 4 if obs.co2 is not None else 3
+        amounts = sum(a is not None for a in (obs.periodate, obs.formic_acid, obs.formaldehyde, obs.co2))
         return FLAT_DENSITY["periodate"] ** amounts
     if kind in FLAT_DENSITY:
         return FLAT_DENSITY[kind]
@@ -343,9 +349,7 @@ def _periodate_verdict(obs: Observation, chain: Chain) -> Verdict:
         return Verdict(False, f"{display_name(chain)} cannot exist as the {obs.substrate} substrate", likelihood=0.0)
     sigma = obs.effective_sigma or 1.0  # every quantitative kind has a default
     observed = (obs.periodate, obs.formic_acid, obs.formaldehyde, obs.co2)
-    pairs = list(zip(predicted[:3], observed[:3], strict=True))
-    if observed[3] is not None:
-        pairs.append((predicted[3], observed[3]))
+    pairs = [(p, o) for p, o in zip(predicted, observed, strict=True) if o is not None]  # what was measured
     # stoichiometric counts are exact (standard error 0): only the measurement's sigma counts
     worst = max(abs(o - p) for p, o in pairs) / sigma
     if worst > REMOVAL_K:

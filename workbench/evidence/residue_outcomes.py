@@ -96,8 +96,7 @@ def outcome_label(kind: str, value: Any) -> str:
     if kind == "smith_degradation":
         return value.word if isinstance(value, SmithFragment) else str(value)
     if kind == "periodate":
-        p, f, h = value[:3]
-        return f"IO4- {p:g}, HCOOH {f:g}, HCHO {h:g}"
+        return outcomes.periodate_text(value[:3])
     return str(value)
 
 
@@ -133,7 +132,8 @@ def fits(obs: Observation, residue: Residue) -> Any:
     observed_amounts = (obs.periodate, obs.formic_acid, obs.formaldehyde)
     # counts are exact; the reading removes beyond REMOVAL_K standard uncertainties (Contract 3)
     bound = REMOVAL_K * (obs.effective_sigma or 0.0)
-    if all(abs(p - o) <= bound + 1e-9 for p, o in zip(predicted, observed_amounts, strict=True)):
+    measured = [(p, o) for p, o in zip(predicted, observed_amounts, strict=True) if o is not None]
+    if all(abs(p - o) <= bound + 1e-9 for p, o in measured):
         return Verdict(True)
     return Verdict(
         False, f"predicted {outcome_label(kind, predicted)}, observed {outcome_label(kind, observed_amounts)}"
