@@ -15,12 +15,12 @@ witnesses found earlier so most values are confirmed without a new search.
 from __future__ import annotations
 
 from collections import defaultdict
-from collections.abc import Callable, Hashable, Iterable, Iterator
+from collections.abc import Callable, Hashable, Iterable, Iterator, Mapping
 from dataclasses import dataclass
 
 from workbench.chem.chain import Chain
 
-__all__ = ["WILD", "Binary", "TokenIndex", "arc_consistent", "find_solution", "supported_domains"]
+__all__ = ["WILD", "Binary", "TokenIndex", "arc_consistent", "find_solution", "supported_domains", "two_core"]
 
 Domains = dict[str, list[Chain]]
 
@@ -182,29 +182,32 @@ def find_solution(domains: Domains, constraints: list[Binary]) -> dict[str, Chai
     return _search(work, constraints)
 
 
-def _cyclic_core(domains: Domains, by_var: dict[str, list[Binary]]) -> set[str]:
-    """Variables of more than one value that lie on or between cycles of constraints among such variables.
+def two_core(variables: Iterable[str], neighbours: Mapping[str, Iterable[str]]) -> set[str]:
+    """The variables on or between cycles: leaves (at most one neighbour left) peeled off until none is.
 
-    Leaves (at most one constraint to another open variable) are peeled off
-    repeatedly; what remains is empty exactly when the open variables' graph
-    is a forest (parallel constraints must be merged beforehand).
+    Empty exactly when the graph is a forest (parallel edges merged beforehand).
     """
-    open_vars = {v for v, d in domains.items() if len(d) > 1}
-    degree = {v: sum(1 for c in by_var[v] if c.other(v) in open_vars) for v in open_vars}
-    core = set(open_vars)
+    core = set(variables)
+    nbrs = {v: [u for u in neighbours.get(v, ()) if u in core] for v in core}
+    degree = {v: len(n) for v, n in nbrs.items()}
     stack = [v for v, k in degree.items() if k <= 1]
     while stack:
         v = stack.pop()
         if v not in core:
             continue
         core.discard(v)
-        for c in by_var[v]:
-            o = c.other(v)
-            if o in core:
-                degree[o] -= 1
-                if degree[o] <= 1:
-                    stack.append(o)
+        for u in nbrs[v]:
+            if u in core:
+                degree[u] -= 1
+                if degree[u] <= 1:
+                    stack.append(u)
     return core
+
+
+def _cyclic_core(domains: Domains, by_var: dict[str, list[Binary]]) -> set[str]:
+    """Variables of more than one value that lie on or between cycles of constraints among such variables."""
+    open_vars = [v for v, d in domains.items() if len(d) > 1]
+    return two_core(open_vars, {v: [c.other(v) for c in by_var[v]] for v in open_vars})
 
 
 def _tree_solution(domains: Domains, by_var: dict[str, list[Binary]]) -> dict[str, Chain] | None:
@@ -305,9 +308,7 @@ def _merge(constraints: list[Binary]) -> list[Binary]:
     return merged
 
 
-def _condition_on_singletons(
-    domains: Domains, constraints: list[Binary], narrowed: set[str]
-) -> list[Binary] | None:
+def _condition_on_singletons(domains: Domains, constraints: list[Binary], narrowed: set[str]) -> list[Binary] | None:
     """Fold constraints touching a one-value variable into filters on the other end (exact).
 
     Variables whose domains the folding narrows are added to ``narrowed``.

@@ -49,7 +49,7 @@ from dataclasses import dataclass, field
 
 from workbench.chem.chain import Chain
 from workbench.evidence import tables
-from workbench.evidence.network import Binary, TokenIndex, components, enumerate_solutions
+from workbench.evidence.network import Binary, TokenIndex, components, enumerate_solutions, two_core
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import fits, flat_likelihood, weight
 
@@ -265,30 +265,6 @@ def _enumerated(
     return beliefs, math.log(total), len(worlds)
 
 
-def _two_core(group: list[str], edges: list[_Edge]) -> set[str]:
-    """Variables on or between cycles: leaves peeled off until none is left (the graph's 2-core)."""
-    degree = {v: 0 for v in group}
-    nbrs: dict[str, list[str]] = defaultdict(list)
-    for e in edges:
-        degree[e.a] += 1
-        degree[e.b] += 1
-        nbrs[e.a].append(e.b)
-        nbrs[e.b].append(e.a)
-    core = set(group)
-    stack = [v for v, k in degree.items() if k <= 1]
-    while stack:
-        v = stack.pop()
-        if v not in core:
-            continue
-        core.discard(v)
-        for u in nbrs[v]:
-            if u in core:
-                degree[u] -= 1
-                if degree[u] <= 1:
-                    stack.append(u)
-    return core
-
-
 def _core_and_trees(
     group: list[str],
     domains: dict[str, list[Chain]],
@@ -308,7 +284,11 @@ def _core_and_trees(
     Reasoning in Intelligent Systems*, 1988, ch. 4.3). Returns
     ``(beliefs, log Z, core assignments, core size)`` or None above the limit.
     """
-    core = _two_core(group, edges)
+    neighbours: dict[str, list[str]] = defaultdict(list)
+    for e in edges:
+        neighbours[e.a].append(e.b)
+        neighbours[e.b].append(e.a)
+    core = two_core(group, neighbours)
     nbrs: dict[str, list[_Edge]] = defaultdict(list)
     for e in edges:
         nbrs[e.a].append(e)
