@@ -221,3 +221,53 @@ def test_fraction_a_hair_below_zero_is_read_as_zero_and_a_far_one_is_kept():
     # anomer rotations disagree, and the value is kept to show it.
     far = fit_mutarotation(t, first_order_curve(t, 140.0, GLC_EQ, 0.015), alpha=GLC_ALPHA, beta=GLC_BETA)
     assert far.initial_beta_fraction == pytest.approx((112.2 - 140.0) / (112.2 - 18.7), abs=1e-3)
+
+
+# ------------------------------------------------------------------ initial rotation of an anomer as evidence
+def _initial(value: float, form: str | None):
+    from projects import over_scope
+
+    obs = {"id": "R0", "kind": "specific_rotation", "unknown": "U", "value": value}
+    if form:
+        obs["form"] = form
+    return over_scope({"carbons": [6], "carbonyl": ["aldose"]}, [obs])
+
+
+def test_initial_rotation_of_the_alpha_anomer_picks_glucose_out():
+    from workbench.evidence import solve
+
+    # freshly dissolved alpha-D-glucose +112.2, alpha-D-galactose +150.7 (Bruice, Organic Chemistry, 8th ed.,
+    # problems 20.65-66): the initial reading keeps D-glucose, removes D-galactose and every L-sugar published
+    left = solve(_initial(112.2, "alpha")).survivors["U"]
+    assert resolve("D-glucose") in left
+    assert resolve("D-galactose") not in left and resolve("L-glucose") not in left
+
+
+def test_initial_rotation_of_the_beta_anomer_is_read_as_beta():
+    from workbench.evidence import solve
+
+    # beta-D-galactose +52.8, beta-D-glucose +18.7 (Bruice, as above)
+    left = solve(_initial(52.8, "beta")).survivors["U"]
+    assert resolve("D-galactose") in left and resolve("D-glucose") not in left
+    # the same number read as an equilibrium value is D-glucose's (+52.7), not D-galactose's (+80.2)
+    eq = solve(_initial(52.8, None)).survivors["U"]
+    assert resolve("D-glucose") in eq and resolve("D-galactose") not in eq
+
+
+def test_an_anomer_without_a_published_rotation_is_kept_and_flagged():
+    from workbench.evidence import solve
+
+    solution = solve(_initial(-40.0, "alpha"))
+    talose = resolve("D-talose")  # no initial rotation of alpha-D-talose in the workbench's table
+    assert talose in solution.survivors["U"]
+    assert any("no prediction" in note for note in solution.flags["U"][talose])
+
+
+def test_the_equilibrium_column_keeps_its_name():
+    from workbench.evidence.observations import observation_from_dict
+    from workbench.evidence.tables import observation_key
+
+    base = {"id": "R", "kind": "specific_rotation", "unknown": "U", "value": 10.0}
+    assert observation_key(observation_from_dict(base)) == "specific_rotation"
+    assert observation_key(observation_from_dict({**base, "form": "equilibrium"})) == "specific_rotation"
+    assert observation_key(observation_from_dict({**base, "form": "alpha"})) == "specific_rotation|form=alpha"

@@ -381,6 +381,12 @@ class Prediction:
 
         return rotation_estimate(self.chain)
 
+    def anomer_rotation(self, anomer: str) -> Estimate | None:
+        """Published initial [alpha]D (deg mL g-1 dm-1) of the pure ``alpha`` or ``beta`` anomer (None: unpublished)."""
+        from workbench.conformers.calibration import anomer_rotation_estimate
+
+        return anomer_rotation_estimate(self.chain, anomer)
+
     def coupling(self, form: str, pair: str) -> Estimate | None:
         """Calibrated 3J(H,H) in Hz of ``pair`` in pyranose ``form`` (None: not predicted)."""
         from workbench.conformers.calibration import coupling_estimate

@@ -64,6 +64,7 @@ __all__ = [
     "model_value",
     "quantities_json",
     "rotation_estimate",
+    "anomer_rotation_estimate",
     "sugar_class",
 ]
 
@@ -399,6 +400,30 @@ def _rotation_spread() -> float:
         if field_name == "equilibrium" and record.equilibrium is not None
     ]
     return math.sqrt(sum(h * h for h in halves) / len(halves)) if halves else 0.0
+
+
+@cache
+def anomer_rotation_estimate(chain: Chain, anomer: str) -> Estimate | None:
+    """Initial [alpha]D in water (deg mL g-1 dm-1) of the pure ``alpha`` or ``beta`` anomer (None: unpublished).
+
+    Read from the same published records as the equilibrium value (Bruice for
+    D-glucose and D-galactose; the rest recalled), with the same standard
+    errors: the record's spread between sources, at least
+    :data:`ROTATION_SE_FLOOR_DEG`, and :data:`ROTATION_SE_MEMORY_DEG` for a
+    recalled value. No sign-only fallback: the signs listed are of the
+    equilibrium values.
+    """
+    if anomer not in ("alpha", "beta"):
+        raise ValueError(f"anomer must be 'alpha' or 'beta', got {anomer!r}")
+    record = published_rotation(chain)
+    value = None if record is None else getattr(record, anomer)
+    if record is None or value is None:
+        return None
+    memory = anomer in record.from_memory
+    se = ROTATION_SE_MEMORY_DEG if memory else max(_rotation_spread(), ROTATION_SE_FLOOR_DEG)
+    n = 1 + sum(1 for f, _, _ in record.alternatives if f == anomer)
+    flags = ("published value recalled from memory",) if memory else ()
+    return Estimate("rotation", float(value), se, "published", float(value), n, flags, from_memory=memory)
 
 
 @cache

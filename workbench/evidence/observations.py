@@ -288,10 +288,18 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
         ),
         _kind(
             "specific_rotation",
-            "equilibrium [alpha]D in water against published values",
+            "[alpha]D in water against published values: the equilibrium, or the initial rotation of an anomer",
             (
                 _UNKNOWN,
-                FieldSpec("value", "float", "equilibrium specific rotation", unit="deg mL g-1 dm-1"),
+                FieldSpec("value", "float", "specific rotation", unit="deg mL g-1 dm-1"),
+                FieldSpec(
+                    "form",
+                    "choice",
+                    "which rotation (left out: the mutarotated equilibrium); alpha or beta: the initial "
+                    "rotation of the freshly dissolved pure anomer, extrapolated to time zero",
+                    required=False,
+                    choices=("equilibrium", "alpha", "beta"),
+                ),
                 _sigma("deg"),
                 _tolerance("deg"),
             ),

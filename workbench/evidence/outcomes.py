@@ -156,7 +156,8 @@ def estimate(obs: Observation, chain: Chain) -> Any:
     record = record_of(chain)
     kind = obs.KIND
     if kind == "specific_rotation":
-        found = record.rotation_estimate
+        form = getattr(obs, "form", None) or "equilibrium"
+        found = record.rotation_estimate if form == "equilibrium" else record.anomer_rotation(form)
         return NO_PREDICTION if found is None else found
     if kind == "anomer_ratio":
         found = record.alpha_share

@@ -88,6 +88,7 @@ _RULE_SOURCES = (
 _PROBE_FIELDS: dict[str, tuple[str, ...]] = {
     "periodate": ("substrate",),
     "coupling_constant": ("form", "pair"),
+    "specific_rotation": ("form",),  # left out (None): the equilibrium, the column of old files
 }
 _FORMAT = 2
 # Kinds whose verdict reads the calibrated estimate (value, standard error, class), not only the
@@ -122,7 +123,8 @@ def observation_key(obs: Any) -> str | None:
     kind = getattr(obs, "KIND", None)
     if kind is None or not getattr(obs, "UNARY", False):
         return None
-    return column_key(kind, **{f: getattr(obs, f) for f in _PROBE_FIELDS.get(kind, ())})
+    fields = {f: getattr(obs, f) for f in _PROBE_FIELDS.get(kind, ())}
+    return column_key(kind, **{f: v for f, v in fields.items() if v is not None and v != "equilibrium"})
 
 
 def _probe(key: str) -> Any:
