@@ -143,10 +143,9 @@ def test_survivors_frame_flags_candidates_without_a_published_rotation():
     frame = solve(project).to_frame().set_index("name")
     # D-galactose +80.2 is published (Bruice 8th ed., problems 20.65-66): it fits and is not flagged.
     assert not frame.loc["D-galactose", "flagged"] and frame.loc["D-galactose", "flags"] == ""
-    # Only the (+) sign is published for D-allose, D-altrose and D-talose (REFERENCE_VALUES, signs of the
-    # D-aldoses): kept and flagged, never eliminated by a rotation of their sign.
-    for name in ("D-allose", "D-altrose", "D-talose"):
-        assert frame.loc[name, "flagged"] and "E1" in frame.loc[name, "flags"]
+    # Only the (-) sign is published for D-idose (REFERENCE_VALUES, signs of the D-aldoses): kept and
+    # flagged, never eliminated by a rotation of the other sign.
+    assert frame.loc["D-idose", "flagged"] and "E1" in frame.loc["D-idose", "flags"]
     # D-glucose +52.7 and D-mannose +14.6 (Bruice; handbook table) lie far outside 80.2 +/- 3.
     assert "D-glucose" not in frame.index and "D-mannose" not in frame.index
 
@@ -311,7 +310,7 @@ def test_predictions_of_the_d_aldohexoses_match_published_facts():
     assert frame.loc["D-glucose", "specific_rotation"] == pytest.approx(52.7)
     assert frame.loc["D-galactose", "specific_rotation"] == pytest.approx(80.2)
     assert frame.loc["D-mannose", "specific_rotation"] == pytest.approx(14.6)
-    assert pd.isna(frame.loc["D-allose", "specific_rotation"])  # only the sign is published
+    assert pd.isna(frame.loc["D-idose", "specific_rotation"])  # only the sign is published
     assert str(frame["aldaric_acid"].dtype) == "boolean" and str(frame["specific_rotation"].dtype) == "Float64"
 
 
@@ -347,11 +346,12 @@ def test_predictions_of_a_ketose_and_of_chain_length_changes():
 
 
 def test_prediction_labels_are_the_planner_words():
-    frame = predictions_frame(D_ALDOHEXOSES, ["aldaric_acid", "specific_rotation"], labels=True).set_index("name")
+    sugars = Scope(carbons=(3, 6), carbonyl=("aldose",), series=("D",))
+    frame = predictions_frame(sugars, ["aldaric_acid", "specific_rotation"], labels=True).set_index("name")
     assert frame.loc["D-galactose", "aldaric_acid"] == "optically inactive (meso)"
-    # D-allose: (+) sign only; D-gulose: (-) sign only (REFERENCE_VALUES, signs of the D-aldoses).
-    assert frame.loc["D-allose", "specific_rotation"] == "dextrorotatory (sign only)"
-    assert frame.loc["D-gulose", "specific_rotation"] == "laevorotatory (sign only)"
+    # D-glyceraldehyde: (+) sign only; D-idose: (-) sign only (REFERENCE_VALUES, signs of the D-aldoses).
+    assert frame.loc["D-glyceraldehyde", "specific_rotation"] == "dextrorotatory (sign only)"
+    assert frame.loc["D-idose", "specific_rotation"] == "laevorotatory (sign only)"
 
 
 def test_prediction_coupling_column_uses_the_normalised_pair():

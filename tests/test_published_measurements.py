@@ -259,6 +259,18 @@ RESIDUES = [
     ("terminal xylose", "D-xylose", "pyranose", "beta", (), (2, 3, 4), (1, 5), "ethylene glycol", (2, 1, 0)),
     ("terminal fucose", "L-fucose", "pyranose", "alpha", (), (2, 3, 4), (1, 5), "propane-1,2-diol", (2, 1, 0)),
     ("rhamnogalacturonan", "L-rhamnose", "pyranose", "alpha", (2,), (3, 4), (1, 2, 5), "propane-1,2-diol", (1, 0, 0)),
+    ("sucrose fructose", "D-fructose", "furanose", "beta", (), (1, 3, 4, 6), (2, 5), "glycerol", (1, 0, 0)),
+    (
+        "arabinogalactan branch",
+        "D-galactose",
+        "pyranose",
+        "beta",
+        (3, 6),
+        (2, 4),
+        (1, 3, 5, 6),
+        "D-galactose",
+        (0, 0, 0),
+    ),
     # 2-acetamido sugars: the N-methylacetamido group at C-2 carries no O-methyl; a 4- or 3-linked GlcNAc has
     # no free vicinal diol and survives periodate (chitin, hyaluronan)
     (
@@ -602,6 +614,115 @@ COMBINED = {
             {"kind": "series", "value": "D"},
             _rotation(-23.7, "handbook"),
             _ratio(0.269, "angyal"),
+        ],
+    ),
+    "D-allose": (
+        HEX_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C6H12O6"},
+            {"kind": "aldaric_acid", "optically_active": False},  # allaric acid is meso, Carey ch. 25
+            {"kind": "series", "value": "D"},
+            _rotation(14.4, "memory"),
+            _ratio(0.153, "angyal"),
+            _coupling("beta_pyranose", "H1-H2", 8.1, "memory"),
+            _coupling("beta_pyranose", "H2-H3", 3.0, "memory"),
+        ],
+    ),
+    "D-altrose": (
+        HEX_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C6H12O6"},
+            {"kind": "bromine_water", "result": "oxidised"},
+            _rotation(32.6, "memory"),
+            _ratio(0.39, "angyal"),
+        ],
+    ),
+    "D-talose": (
+        HEX_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C6H12O6"},
+            {"kind": "bromine_water", "result": "oxidised"},
+            _rotation(20.8, "memory"),
+            _ratio(0.58, "angyal"),
+        ],
+    ),
+    "D-gulose": (
+        HEX_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C6H12O6"},
+            {"kind": "bromine_water", "result": "oxidised"},
+            _rotation(-26.4, "memory"),
+            _ratio(0.165, "angyal"),
+        ],
+    ),
+    "L-sorbose": (
+        HEX_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C6H12O6"},
+            {"kind": "bromine_water", "result": "unchanged"},
+            _rotation(-43.4, "handbook"),
+            _ratio(0.98, "memory"),
+            _periodate("free", (5, 3, 2, 1)),
+        ],
+    ),
+    "D-lyxose": (
+        PENT_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C5H10O5"},
+            {"kind": "aldaric_acid", "optically_active": True},  # D-threo-pentaric acid, Carey ch. 25
+            {"kind": "series", "value": "D"},
+            _rotation(-14.0, "memory"),
+            _ratio(0.714, "angyal"),
+            _coupling("alpha_pyranose", "H1-H2", 4.8, "memory"),
+        ],
+    ),
+    "D-galactosamine": (
+        HEX_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C6H13NO5"},
+            {"kind": "series", "value": "D"},
+            _rotation(93.0, "memory"),
+            _ratio(0.70, "memory"),
+            _coupling("beta_pyranose", "H3-H4", 3.4, "memory"),
+        ],
+    ),
+    "2-acetamido-2-deoxy-D-galactose": (
+        HEX_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C8H15NO6"},
+            {"kind": "series", "value": "D"},
+            _rotation(86.0, "memory"),
+            _coupling("beta_pyranose", "H1-H2", 8.5, "memory"),
+            _coupling("beta_pyranose", "H3-H4", 3.3, "memory"),
+        ],
+    ),
+    "D-glucuronic acid": (
+        HEX_ANY,
+        [
+            {"kind": "molecular_formula", "value": "C6H10O7"},  # common practice
+            {"kind": "series", "value": "D"},
+            _rotation(36.0, "memory"),
+            _coupling("beta_pyranose", "H1-H2", 7.9, "memory"),
+            _coupling("beta_pyranose", "H3-H4", 9.3, "memory"),
+        ],
+    ),
+    "D-manno-hept-2-ulose": (
+        {"carbons": [7], "series": ["D", "L"]},
+        [
+            {"kind": "molecular_formula", "value": "C7H14O7"},
+            {"kind": "bromine_water", "result": "unchanged"},
+            _rotation(29.4, "memory"),
+        ],
+    ),
+    "L-glycero-D-manno-heptose": (
+        HEPT,
+        [
+            {"kind": "molecular_formula", "value": "C7H14O7"},
+            {"kind": "bromine_water", "result": "oxidised"},
+            _coupling("alpha_pyranose", "H1-H2", 1.8, "memory"),
+            _coupling("alpha_pyranose", "H2-H3", 3.3, "memory"),
+            _coupling("alpha_pyranose", "H3-H4", 9.6, "memory"),
+            _coupling("alpha_pyranose", "H4-H5", 9.8, "memory"),
         ],
     ),
     "2-deoxy-D-ribose": (

@@ -296,13 +296,13 @@ def test_solve_json_carries_probabilities_flags_and_entropy(tmp_path, capsys):
     assert sum(s["probability"] for s in unknown["survivors"]) == pytest.approx(1.0, abs=1e-5)
     assert all(isinstance(s["flags"], list) for s in unknown["survivors"])
     assert unknown["entropy_bits"] > 0 and data["suspects"] == []
-    # sign-only rotations (altrose, talose, allose: +) are kept with a flag, never removed by the sign
+    # D-idose, sign only (-), and D-allose, +14.4 recalled [from memory], are kept with a flag
     flagged = {s["name"] for s in unknown["survivors"] if s["flags"]}
-    assert {"D-altrose", "D-talose", "D-allose"} <= flagged
+    assert {"D-idose", "D-allose"} <= flagged
 
 
 def test_predict_json_gives_each_quantity_its_standard_error_and_class(capsys):
-    assert main(["predict", "D-altrose", "--json"]) == 0
+    assert main(["predict", "D-idose", "--json"]) == 0
     q = json.loads(capsys.readouterr().out)["predictions"]["quantities"]
     assert q["alpha_share"]["class"] == "aldohexose_mobile" and q["alpha_share"]["se"] > 0
     assert q["specific_rotation"]["sign_only"] is True

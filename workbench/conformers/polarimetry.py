@@ -11,10 +11,12 @@ REFERENCE_VALUES.md:
   D-xylose, D-glucose, D-galactose, D-fructose, D-mannose, L-rhamnose,
   L-sorbose);
 - D-mannose alpha and beta from memory ([memory]: give them a wide tolerance);
-- the natural deoxy, amino, acetamido and acidic sugars, D-lyxose, D-tagatose
-  and D-manno-hept-2-ulose, and the anomers of L-rhamnose, from memory (Merck
-  Index and supplier figures as recalled; amino sugars as hydrochlorides): the
-  calibration layer gives every recalled value a wide standard error.
+- the natural deoxy, amino, acetamido and acidic sugars, D-lyxose, D-allose,
+  D-altrose, D-talose, D-gulose, D-tagatose and D-manno-hept-2-ulose, and the
+  anomers of L-rhamnose, from memory (Merck Index and supplier figures as
+  recalled; amino sugars as hydrochlorides): the calibration layer gives every
+  recalled value a wide standard error. D-idose and the tetroses keep only
+  their signs.
 
 A value published for one enantiomer applies to the other with its sign
 inverted (enantiomers rotate plane-polarised light equally and oppositely);
@@ -142,6 +144,10 @@ _TABLE: tuple[RotationRecord, ...] = (
     # Natural deoxy, amino and acidic sugars and a ketose or two, every value recalled (wide error)
     RotationRecord("D-lyxose", 5.5, None, -14.0, f"alpha, equilibrium: {_RECALLED}", ("alpha", "equilibrium")),
     RotationRecord("D-tagatose", None, None, -5.0, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("D-allose", None, None, 14.4, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("D-altrose", None, None, 32.6, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("D-talose", None, None, 20.8, f"equilibrium: {_RECALLED}", ("equilibrium",)),
+    RotationRecord("D-gulose", None, None, -26.4, f"equilibrium: {_RECALLED}", ("equilibrium",)),
     RotationRecord("L-fucose", None, None, -75.9, f"equilibrium: {_RECALLED}", ("equilibrium",)),
     RotationRecord("6-deoxy-D-glucose", None, None, 29.7, f"equilibrium: {_RECALLED}", ("equilibrium",)),
     RotationRecord("2-deoxy-D-glucose", None, None, 46.0, f"equilibrium: {_RECALLED}", ("equilibrium",)),
