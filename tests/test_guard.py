@@ -136,3 +136,29 @@ def test_text_arguments_that_are_not_utf8_are_refused(argv, capsys):
     assert main(argv) == 2
     err = capsys.readouterr().err
     assert "not valid UTF-8" in err and "Traceback" not in err
+
+
+def test_an_id_shaped_like_a_formula_or_a_known_sugar_stays_an_unknown(tmp_path, capsys):
+    """Ids starting with '=' once collided with the solver's names for known sugars (a KeyError)."""
+    from projects import project_dict
+
+    # D-glucose and D-mannose share their osazone (common practice: C-2 epimers)
+    data = project_dict(
+        [{"id": "=D-mannose", "scope": {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}}],
+        [
+            {
+                "id": "E1",
+                "kind": "same_product",
+                "reaction": "osazone",
+                "members": ["=D-mannose", "D-glucose"],
+                "relation": "identical",
+            },
+            {"id": "E2", "kind": "different", "members": ["=D-mannose", "D-glucose"]},
+        ],
+    )
+    path = tmp_path / "p.json"
+    path.write_text(json.dumps(data), encoding="utf-8")
+    assert main(["solve", "--json", str(path)]) == 0
+    out = json.loads(capsys.readouterr().out)
+    survivors = out["unknowns"]["=D-mannose"]["survivors"]
+    assert [s["name"] for s in survivors] == ["D-mannose"]

@@ -29,7 +29,15 @@ from workbench.chem.predictions import predict as record_of
 from workbench.chem.smiles import mirror_smiles
 from workbench.evidence import tables
 from workbench.evidence.conflicts import conflict_sets
-from workbench.evidence.network import WILD, Binary, components, enumerate_solutions, find_solution, supported_domains
+from workbench.evidence.network import (
+    AUXILIARY,
+    WILD,
+    Binary,
+    components,
+    enumerate_solutions,
+    find_solution,
+    supported_domains,
+)
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import Verdict, fits, passes, product_key
 from workbench.evidence.posterior import (
@@ -168,11 +176,11 @@ class Solution:
 
 # ------------------------------------------------------------------ building
 def _ref(project: Project, member: str) -> tuple[str, Chain | None]:
-    """Variable name for a member: the unknown's id, or ``=name`` for a known sugar."""
+    """Variable name for a member: the unknown's id, or :data:`AUXILIARY` + name for a known sugar."""
     target = project.member(member)
     if isinstance(target, str):
         return target, None
-    return f"={member}", target
+    return f"{AUXILIARY}{member}", target
 
 
 def _shortened(chain: Chain) -> Chain | None:
@@ -390,7 +398,7 @@ def _survivors(project: Project, observations: Iterable[Observation]) -> dict[st
     out = supported_domains(domains, constraints)
     if out is None:
         return None
-    return {k: v for k, v in out.items() if not k.startswith("=")}
+    return {k: v for k, v in out.items() if not k.startswith(AUXILIARY)}
 
 
 def is_consistent(project: Project, observations: Iterable[Observation]) -> bool:
@@ -441,7 +449,7 @@ class _SubsetNetworks:
     def survivors(self, subset: list[Observation]) -> dict[str, list[Chain]] | None:
         domains, constraints = self.network(subset)
         out = supported_domains(domains, constraints) if all(domains.values()) else None
-        return None if out is None else {k: v for k, v in out.items() if not k.startswith("=")}
+        return None if out is None else {k: v for k, v in out.items() if not k.startswith(AUXILIARY)}
 
 
 def _conflict_sets(project: Project, observations: list[Observation], networks: _SubsetNetworks | None = None):
@@ -577,7 +585,7 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
         touched = {obs.unknown} if obs.UNARY else {v for c in new_cons for v in (c.a, c.b)} | set(new_fixed)
         empty = any(not d for d in domains.values())
         result = None if empty else supported_domains(domains, constraints + new_cons, around=touched)
-        trial = None if result is None else {k: tuple(v) for k, v in result.items() if not k.startswith("=")}
+        trial = None if result is None else {k: tuple(v) for k, v in result.items() if not k.startswith(AUXILIARY)}
         if trial is None:
             trail.append(TrailStep(obs.id, "contradicts", {}, {u: len(current[u]) for u in current}))
             continue
@@ -702,8 +710,8 @@ def joint_worlds(solution: Solution, limit: int = 20000) -> dict[str, list[dict[
         worlds = enumerate_solutions(sub_domains, sub_cons, limit)
         if worlds is None:
             continue
-        clean = [{k: v for k, v in w.items() if not k.startswith("=")} for w in worlds]
+        clean = [{k: v for k, v in w.items() if not k.startswith(AUXILIARY)} for w in worlds]
         for v in group:
-            if not v.startswith("="):
+            if not v.startswith(AUXILIARY):
                 out[v] = clean
     return out

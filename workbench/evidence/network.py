@@ -20,9 +20,22 @@ from dataclasses import dataclass
 
 from workbench.chem.chain import Chain
 
-__all__ = ["WILD", "Binary", "TokenIndex", "arc_consistent", "find_solution", "supported_domains", "two_core"]
+__all__ = [
+    "AUXILIARY",
+    "WILD",
+    "Binary",
+    "TokenIndex",
+    "arc_consistent",
+    "find_solution",
+    "supported_domains",
+    "two_core",
+]
 
 Domains = dict[str, list[Chain]]
+
+# The first character of every variable that is not an unknown (a known sugar named in a relation, a
+# hidden variable): a control character, which no id of a project file may hold, so no id can collide.
+AUXILIARY = "\x1f"
 
 
 class _Wild:

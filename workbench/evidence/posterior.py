@@ -363,8 +363,9 @@ def joint_posterior(
     (beyond it the group is ``approximate``).
 
     ``domains`` holds the survivors of every unknown and the one-value
-    variables ``=name`` of known sugars; ``weights`` the unary weights of the
-    unknowns' survivors (known sugars and auxiliary variables, which have
+    variables of known sugars (whose names start with
+    :data:`~workbench.evidence.network.AUXILIARY`); ``weights`` the unary
+    weights of the unknowns' survivors (known sugars and auxiliary variables, which have
     no weights, weigh 1 and are not reported); ``scope_sizes`` the number of
     candidates of each unknown's scope (for the evidence).
     """

@@ -33,7 +33,7 @@ from workbench.chem.parse import resolve
 from workbench.chem.residue import Residue, ResidueScope
 from workbench.chem.residue_periodate import SmithFragment, product_keys, residue_periodate, residue_smith
 from workbench.evidence import outcomes
-from workbench.evidence.network import Binary
+from workbench.evidence.network import AUXILIARY, Binary
 from workbench.evidence.observations import Observation
 from workbench.evidence.outcomes import REMOVAL_K, Verdict
 
@@ -161,7 +161,7 @@ def balance_constraints(obs: Observation, scopes: dict[str, Any]) -> tuple[list[
         scope = scopes[member]
         top = scope.max_linked if isinstance(scope, ResidueScope) else 0
         ranges.append(range(0, top + 1))
-    hidden = f"=balance:{obs.id}"
+    hidden = f"{AUXILIARY}balance:{obs.id}"
     vectors = Choices(feasible_counts(tuple(obs.amounts), ranges, obs.tolerance))
     out = []
     for i, member in enumerate(obs.members):
