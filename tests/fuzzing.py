@@ -36,6 +36,10 @@ HOSTILE = (
     "\u0000\u0085\u2028",
     " ",
     "",
+    '=HYPERLINK("http://x","y")',  # spreadsheet formulae (CSV export) and the solver's own names
+    "@SUM(1)",
+    "+1",
+    "|form=alpha",
 )
 CATEGORIES = (
     "valid",
@@ -145,7 +149,8 @@ def _mutate(rng: random.Random, category: str, base: dict[str, Any], scale: int)
         word = rng.choice(HOSTILE)
         if rng.random() < 0.5 and data.get("unknowns"):
             old = data["unknowns"][0]["id"]  # rename an unknown everywhere: references stay consistent
-            text = _dump(data).decode("utf-8").replace(f'"{old}"', json.dumps("U" + word))
+            new = "U" + word if rng.random() < 0.5 else word + "U"  # the word also leads the id
+            text = _dump(data).decode("utf-8").replace(f'"{old}"', json.dumps(new))
             return text.encode("utf-8", "surrogatepass")
         strings = [p for p in _paths(data)[1:] if isinstance(_get(data, p), str)]
         for target in rng.sample(strings, min(len(strings), rng.randint(1, 4))):
