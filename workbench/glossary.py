@@ -97,6 +97,7 @@ FIELD_NAMES: dict[tuple[str, str] | str, str] = {
     ("series", "value"): "series",
     ("molecular_formula", "value"): "formula",
     ("specific_rotation", "value"): "[α]D",
+    ("specific_rotation", "form"): "rotation of",
     ("coupling_constant", "value"): "³J(H,H)",
     ("periodate", "periodate"): "IO₄⁻ consumed",
     "formic_acid": "HCOOH formed",
