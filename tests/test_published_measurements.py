@@ -92,6 +92,26 @@ ROTATIONS = [
     ("D-manno-hept-2-ulose", HEPT_KETO, 29.4, "memory"),
 ]
 
+# Initial [alpha]D of a freshly dissolved pure anomer (deg), observed as specific_rotation with its form
+# (sugar, scope, form, value, source); amino sugars as hydrochlorides
+INITIAL_ROTATIONS = [
+    ("D-glucose", HEX_ANY, "alpha", 112.2, "bruice"),
+    ("D-glucose", HEX_ANY, "beta", 18.7, "bruice"),
+    ("D-galactose", HEX_ANY, "alpha", 150.7, "bruice"),
+    ("D-galactose", HEX_ANY, "beta", 52.8, "bruice"),
+    ("D-mannose", HEX_ANY, "alpha", 29.3, "memory"),
+    ("D-mannose", HEX_ANY, "beta", -17.0, "memory"),
+    ("L-rhamnose", HEX_ANY, "alpha", -7.7, "memory"),  # the monohydrate
+    ("D-glucosamine", HEX_ANY, "alpha", 100.0, "memory"),
+    ("2-acetamido-2-deoxy-D-glucose", HEX_ANY, "alpha", 64.0, "memory"),
+    ("D-galacturonic acid", HEX_ANY, "alpha", 98.0, "memory"),
+    ("D-fructose", HEX_ANY, "beta", -132.0, "memory"),  # beta-pyranose, the crystalline form
+    ("D-xylose", PENT_ANY, "alpha", 93.6, "memory"),
+    ("D-lyxose", PENT_ANY, "alpha", 5.5, "memory"),
+    ("L-arabinose", PENT_ANY, "beta", 190.6, "memory"),  # beta-L-pyranose, the crystalline form
+    ("D-allose", HEX_ANY, "beta", 0.6, "memory"),
+]
+
 # Initial rotations of the pure anomers and the equilibrium value (deg): the two-state model turns them
 # into the beta share of the pyranoses, which must agree with the calibrated alpha share. (sugar, alpha,
 # beta, equilibrium, source)
@@ -392,14 +412,28 @@ def _survives(observation: dict, name: str, scope: dict):
 
 # ------------------------------------------------------------------ one reading, one project
 def test_the_tables_are_broad():
-    sugars = {row[0] for table in (ROTATIONS, ANOMER_RATIOS, COUPLINGS, PERIODATE) for row in table}
+    tables = (ROTATIONS, INITIAL_ROTATIONS, ANOMER_RATIOS, COUPLINGS, PERIODATE)
+    sugars = {row[0] for table in tables for row in table}
     assert len(sugars) >= 30
-    assert len(ROTATIONS) + len(ANOMER_RATIOS) + len(COUPLINGS) + len(PERIODATE) + len(RESIDUES) >= 150
+    assert sum(len(table) for table in tables) + len(RESIDUES) >= 150
 
 
 @pytest.mark.parametrize(("name", "scope", "value", "source"), ROTATIONS)
 def test_a_published_rotation_keeps_its_sugar(name, scope, value, source):
     _survives(_rotation(value, source), name, scope)
+
+
+@pytest.mark.parametrize(("name", "scope", "form", "value", "source"), INITIAL_ROTATIONS)
+def test_a_published_initial_rotation_keeps_its_sugar(name, scope, form, value, source):
+    _survives({**_rotation(value, source), "form": form}, name, scope)
+
+
+def test_an_initial_rotation_from_a_textbook_ranks_its_sugar_first_or_tied():
+    # Bruice's four anomer rotations: each picks its sugar out of the hexoses of every kind
+    for name, scope, form, value, source in INITIAL_ROTATIONS:
+        if source == "bruice":
+            solution = _survives({**_rotation(value, source), "form": form}, name, scope)
+            assert _top_or_tied(solution, "U", resolve(name)), (name, form)
 
 
 @pytest.mark.parametrize(("name", "scope", "value", "source"), ANOMER_RATIOS)
@@ -439,6 +473,22 @@ def test_anomeric_rotations_agree_with_the_predicted_anomer_ratio(name, alpha, b
     assert est is not None and est.se is not None
     alpha_share = 1 - two_state_beta_fraction(alpha, beta, equilibrium)
     assert abs(alpha_share - est.value) <= 4 * est.se + 0.05
+
+
+# Formulas as handbooks print them, water of crystallisation or the acid of a salt after a dot (Merck Index
+# style, from memory): the free sugar's formula is meant
+HANDBOOK_FORMULAS = [
+    ("L-rhamnose", "C6H12O5\u00b7H2O"),  # L-rhamnose monohydrate
+    ("D-glucosamine", "C6H13NO5\u00b7HCl"),  # D-glucosamine hydrochloride
+    ("D-galactosamine", "C6H13NO5.HCl"),
+    ("D-glucose", "C6H12O6.H2O"),  # alpha-D-glucose monohydrate
+    ("L-fucose", "C6H12O5"),
+]
+
+
+@pytest.mark.parametrize(("name", "formula"), HANDBOOK_FORMULAS)
+def test_a_handbook_formula_of_a_hydrate_or_salt_keeps_its_sugar(name, formula):
+    _survives({"id": "E", "kind": "molecular_formula", "unknown": "U", "value": formula}, name, HEX_ANY)
 
 
 # ------------------------------------------------------------------ glycan residues

@@ -264,7 +264,14 @@ OBSERVATION_TYPES: dict[str, type[Observation]] = {
         _kind(
             "molecular_formula",
             "molecular formula of the free sugar (e.g. from HRMS)",
-            (_UNKNOWN, FieldSpec("value", "text", "Hill formula such as C6H12O6")),
+            (
+                _UNKNOWN,
+                FieldSpec(
+                    "value",
+                    "text",
+                    "Hill formula such as C6H12O6 (a hydrate or salt, C6H12O5.H2O, reads as the free sugar)",
+                ),
+            ),
         ),
         _kind(
             "periodate",
@@ -584,10 +591,27 @@ _ELEMENTS = frozenset({"C", "H", "N", "O", "S", "P", "F", "Cl", "Br", "I", "Na",
 _ELEMENT = re.compile(r"([A-Z][a-z]?)(\d*)")
 
 
+# What a handbook writes after a centred dot: water of crystallisation and the acid of a salt
+# (L-rhamnose C6H12O5.H2O, D-glucosamine C6H13NO5.HCl [common practice]); dropped, the free sugar remains.
+_ADDUCT = re.compile(r"(\d*|[xn])(H2O|HCl|HBr|HI)")
+_ADDUCT_DOTS = ("\u00b7", "\u2022", "\u2219", "*", ".")
+
+
 def _hill_formula(text: str, oid: str) -> str:
     """A molecular formula in Hill order (C, then H, then the rest alphabetically; without carbon all
-    alphabetically: Hill, J. Am. Chem. Soc. 22, 478, 1900), spaces removed; else ObservationError."""
+    alphabetically: Hill, J. Am. Chem. Soc. 22, 478, 1900), spaces removed; else ObservationError.
+
+    A hydrate or salt written with a dot (``C6H12O5.H2O``, ``C6H13NO5.HCl``) gives the free sugar's formula.
+    """
     clean = text.replace(" ", "")
+    for dot in _ADDUCT_DOTS:
+        clean = clean.replace(dot, "\u00b7")
+    if "\u00b7" in clean:
+        clean, *adducts = clean.split("\u00b7")
+        if not all(_ADDUCT.fullmatch(a) for a in adducts):
+            raise ObservationError(
+                oid, "value", f"{show(text)}: only water or HCl, HBr, HI may follow the dot (a hydrate or a salt)"
+            )
     parts = _ELEMENT.findall(clean)
     if not clean or "".join(e + n for e, n in parts) != clean or len(clean) > 60:
         raise ObservationError(oid, "value", f"{show(text)} is not a molecular formula such as C6H12O6")
