@@ -198,6 +198,11 @@ COUPLINGS = [
     ("2-deoxy-D-glucose", HEX_ANY, "beta_pyranose", "H1-H2eq", 2.0, "memory"),
     ("D-fructose", HEX_ANY, "beta_pyranose", "H3-H4", 10.0, "memory"),
     ("D-fructose", HEX_ANY, "beta_pyranose", "H4-H5", 3.4, "memory"),
+    ("D-fructose", HEX_ANY, "beta_pyranose", "H5-H6ax", 1.5, "memory"),
+    ("L-sorbose", HEX_ANY, "alpha_pyranose", "H3-H4", 9.7, "memory"),  # every ring proton axial
+    ("L-sorbose", HEX_ANY, "alpha_pyranose", "H4-H5", 9.6, "memory"),
+    ("L-sorbose", HEX_ANY, "alpha_pyranose", "H5-H6ax", 10.6, "memory"),
+    ("L-sorbose", HEX_ANY, "alpha_pyranose", "H5-H6eq", 5.6, "memory"),
     ("D-xylose", PENT_ANY, "alpha_pyranose", "H1-H2", 3.6, "memory"),
     ("D-xylose", PENT_ANY, "beta_pyranose", "H1-H2", 7.8, "memory"),
     ("D-xylose", PENT_ANY, "beta_pyranose", "H2-H3", 9.3, "memory"),
@@ -291,6 +296,30 @@ RESIDUES = [
         "D-galactose",
         (0, 0, 0),
     ),
+    # lipopolysaccharide inner core heptose: periodate also cuts the exocyclic C-6/C-7 diol (HCHO), so a
+    # 3-linked residue leaves a hexose, D-mannose, after Smith degradation [from memory]
+    (
+        "LPS core heptose",
+        "L-glycero-D-manno-heptose",
+        "pyranose",
+        "alpha",
+        (3,),
+        (2, 4, 6, 7),
+        (1, 3, 5),
+        "D-mannose",
+        (1, 0, 1),
+    ),
+    (
+        "terminal heptose",
+        "L-glycero-D-manno-heptose",
+        "pyranose",
+        "alpha",
+        (),
+        (2, 3, 4, 6, 7),
+        (1, 5),
+        "glycerol",
+        (3, 1, 1),
+    ),
     # 2-acetamido sugars: the N-methylacetamido group at C-2 carries no O-methyl; a 4- or 3-linked GlcNAc has
     # no free vicinal diol and survives periodate (chitin, hyaluronan)
     (
@@ -334,6 +363,7 @@ GLYCAN_SUGARS = [
     "D-glucuronic acid",
     "D-galacturonic acid",
     "2-acetamido-2-deoxy-D-glucose",
+    "L-glycero-D-manno-heptose",
 ]
 
 
