@@ -327,13 +327,21 @@ def coupling_class(chain: Chain) -> tuple[str, str]:
     2-acetamido sugar (N-acetyl, otherwise unmodified) uses the amino class:
     the equation sees the same nitrogen on the ring carbon, so NH3+ and NHAc
     have the same electronegativity term; its anomer ratio stays uncalibrated
-    (the amino class's bias is that of the protonated amines).
+    (the amino class's bias is that of the protonated amines). A hexuronic acid
+    uses the class of the aldohexose with the same ring: the carboxyl carbon
+    enters the equation as the CH2OH carbon does, with its two oxygens as
+    beta substituents, so only J(4,5) moves, and the model computes that.
     """
     cls = sugar_class(chain)
     groups = chain.groups
     acetamido = chain.carbonyl == "aldose" and chain.carbons in (5, 6) and set(groups) - {"CHNHAc"} <= _PLAIN
     if cls == "other" and acetamido and groups.count("CHNHAc") == 1:
         return "amino", "coupling calibrated on the amino sugars (the same nitrogen on the ring carbon)"
+    if cls == "uronic" and chain.carbons == 6:
+        ring_prefix = systematic_name(chain).split("-")[1]
+        for prefixes, key in ((_RIGID, "aldohexose_rigid"), (_MOBILE, "aldohexose_mobile")):
+            if ring_prefix in prefixes:
+                return key, f"coupling calibrated on the aldohexoses with the same ring ({ring_prefix})"
     if cls == "other" and chain.carbonyl == "aldose" and chain.carbons >= 7 and set(groups[1:-1]) == {"CHOH"}:
         ring_prefix = systematic_name(chain).rsplit("-", 2)[-2]
         if ring_prefix in _RIGID:
