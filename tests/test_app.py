@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import json
 import os
+import re
 import shutil
 import signal
 import socket
@@ -97,6 +98,10 @@ def test_app_serves_the_panels_without_code_and_stops_cleanly(tmp_path):
                 time.sleep(0.5)
         assert "application/vnd.jupyter.widget-view+json" in page  # the panels are there ...
         assert "Workbench.open" not in page and "from workbench" not in page  # ... the code is not
+        # no stylesheet or script from another site (the stock page links Font Awesome from a CDN)
+        assert not re.search(r"""(?<![-\w])(?:href|src)=["']https?://(?!127\.0\.0\.1|localhost)""", page), page[
+            max(0, page.find("https://") - 300) : page.find("https://") + 200
+        ]
     finally:
         server.send_signal(signal.SIGTERM)
         output = server.communicate(timeout=30)[0].decode("utf-8", "replace")

@@ -193,6 +193,7 @@ def test_the_app_page_shows_the_panels(lab_root, browser_page):
         assert "S1: 4 left" in page.locator(".ss-live").first.inner_text()
         assert page.locator(".jp-InputArea, .jp-CodeMirrorEditor").count() == 0  # panels only, no code
         shot(page, "app-page")
+        assert page.offsite == []  # the page template links nothing outside (no CDN)
     finally:
         os.killpg(process.pid, signal.SIGTERM)
         try:

@@ -123,13 +123,13 @@ def prepare_lab(project: str | os.PathLike[str] | None = None, directory: str | 
     return LabFiles(target, notebook, tuple(created))
 
 
-def run_server(command: Sequence[str], cwd: Path) -> int:
+def run_server(command: Sequence[str], cwd: Path, env: dict[str, str] | None = None) -> int:
     """Run a server process until it stops; returns its exit code.
 
     A SIGTERM to this process (or Ctrl-C) stops the server too, so no server
     outlives the command and temporary folders are removed on the way out.
     """
-    process = subprocess.Popen(list(command), cwd=str(cwd))
+    process = subprocess.Popen(list(command), cwd=str(cwd), env=env)
 
     def _stop(signum: int, _frame: object) -> None:
         raise SystemExit(128 + signum)
@@ -203,9 +203,22 @@ def app_notebook_text(project: Path) -> str:
     return json.dumps(notebook, indent=1, ensure_ascii=False) + "\n"
 
 
+# The page template shipped in workbench/data/voila/templates: Voila's "lab" page without its links to a CDN.
+APP_TEMPLATE = "stereosieve-offline"
+
+
+def app_environment() -> dict[str, str]:
+    """The environment of the page server: the package's data folder first on the Jupyter data path,
+    where Voila finds :data:`APP_TEMPLATE`."""
+    data = str(Path(__file__).resolve().parent.parent / "data")
+    env = dict(os.environ)
+    env["JUPYTER_PATH"] = os.pathsep.join(p for p in (data, env.get("JUPYTER_PATH", "")) if p)
+    return env
+
+
 def app_command(notebook: Path, browser: bool = True, port: int | None = None, extra: Sequence[str] = ()) -> list[str]:
-    """The Voila command line that serves ``notebook`` as a page without code."""
-    command = [sys.executable, "-m", "voila", str(notebook), "--strip_sources=True"]
+    """The Voila command line that serves ``notebook`` as a page without code (and without any CDN)."""
+    command = [sys.executable, "-m", "voila", str(notebook), "--strip_sources=True", f"--template={APP_TEMPLATE}"]
     if not browser:
         command.append("--no-browser")
     if port is not None:
@@ -224,4 +237,4 @@ def launch_app(project: Path, browser: bool = True, port: int | None = None, ext
         write_text_atomic(notebook, app_notebook_text(project))
         command = app_command(notebook, browser, port, extra)
         log.info("starting %s", " ".join(command))
-        return run_server(command, project.resolve().parent)
+        return run_server(command, project.resolve().parent, env=app_environment())
