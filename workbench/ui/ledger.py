@@ -66,9 +66,11 @@ class LedgerPanel(Panel):
             f"{'<br><span style=color:' + MUTED + '>' + esc(who) + '</span>' if who else ''}{note}</div>",
             layout=w.Layout(width="100%"),
         )
-        edit = w.Button(icon="pencil", tooltip=f"edit {obs.id}", layout=w.Layout(width="34px"))
+        edit = w.Button(icon="pencil", tooltip=f"edit {obs.id}", layout=w.Layout(width="40px", padding="0"))
         edit.on_click(self.notices.guard(lambda _b, o=obs: self._edit(o)))
-        delete = w.Button(icon="trash", tooltip=f"delete {obs.id} (can be undone)", layout=w.Layout(width="34px"))
+        delete = w.Button(
+            icon="trash", tooltip=f"delete {obs.id} (can be undone)", layout=w.Layout(width="40px", padding="0")
+        )
         delete.on_click(self.notices.guard(lambda _b, oid=obs.id: self.delete(oid)))
         return w.HBox(
             [switch, text, edit, delete],
