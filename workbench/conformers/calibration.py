@@ -87,6 +87,7 @@ CLASSES: dict[str, str] = {
 # like altro/ido/talo (calibration.json residuals)
 _MOBILE = ("altro", "ido", "talo")
 _RIGID = ("allo", "gluco", "manno", "galacto", "gulo")
+_RIGID_URONIC = ("allo", "gluco", "manno", "galacto")
 _PLAIN = {"CHO", "CHOH", "CH2OH"}
 
 # Equilibrium [alpha]D of one sugar from different handbooks differs by 1-2 deg (temperature,
@@ -327,8 +328,10 @@ def coupling_class(chain: Chain) -> tuple[str, str]:
     2-acetamido sugar (N-acetyl, otherwise unmodified) uses the amino class:
     the equation sees the same nitrogen on the ring carbon, so NH3+ and NHAc
     have the same electronegativity term; its anomer ratio stays uncalibrated
-    (the amino class's bias is that of the protonated amines). A hexuronic acid
-    uses the class of the aldohexose with the same ring: the carboxyl carbon
+    (the amino class's bias is that of the protonated amines). A gluco-,
+    manno-, galacto- or allo-hexuronic acid uses the class of the aldohexose
+    with the same ring (the other hexuronic acids stay uncalibrated: their
+    chairs are not known to be firm as acids): the carboxyl carbon
     enters the equation as the CH2OH carbon does, with its two oxygens as
     beta substituents, so only J(4,5) moves, and the model computes that.
     """
@@ -339,9 +342,8 @@ def coupling_class(chain: Chain) -> tuple[str, str]:
         return "amino", "coupling calibrated on the amino sugars (the same nitrogen on the ring carbon)"
     if cls == "uronic" and chain.carbons == 6:
         ring_prefix = systematic_name(chain).split("-")[1]
-        for prefixes, key in ((_RIGID, "aldohexose_rigid"), (_MOBILE, "aldohexose_mobile")):
-            if ring_prefix in prefixes:
-                return key, f"coupling calibrated on the aldohexoses with the same ring ({ring_prefix})"
+        if ring_prefix in _RIGID_URONIC:
+            return "aldohexose_rigid", f"coupling calibrated on the aldohexoses with the same ring ({ring_prefix})"
     if cls == "other" and chain.carbonyl == "aldose" and chain.carbons >= 7 and set(groups[1:-1]) == {"CHOH"}:
         ring_prefix = systematic_name(chain).rsplit("-", 2)[-2]
         if ring_prefix in _RIGID:
