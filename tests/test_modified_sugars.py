@@ -88,6 +88,27 @@ def test_bare_symbols_take_the_conventional_series(text, expected):
 
 
 @pytest.mark.parametrize(
+    ("text", "expected"),
+    [
+        # symbols as glycoscientists write residues (IUPAC-IUBMB 1996, 2-Carb-38 and 2-Carb-37): an anomer
+        # prefix, and the ring letter before a suffix; the free sugar's chain is the same
+        ("alpha-D-Glcp", "D-glucose"),
+        ("β-D-Galp", "D-galactose"),
+        ("alpha-L-Fucp", "L-fucose"),
+        ("beta-D-Fruf", "D-fructose"),
+        ("beta-D-GlcpNAc", "N-acetyl-D-glucosamine"),
+        ("alpha-D-GalpNAc", "N-acetyl-D-galactosamine"),
+        ("beta-D-GlcpA", "D-glucuronic acid"),
+        ("alpha-L-IdopA", "L-iduronic acid"),
+        ("alpha-D-GlcpN", "D-glucosamine"),
+    ],
+)
+def test_symbols_with_anomer_and_ring_letter(text, expected):
+    assert from_symbol(text) == from_name(expected)
+    assert resolve(text) == from_name(expected)
+
+
+@pytest.mark.parametrize(
     "name",
     ["D-glucose", "L-rhamnose", "N-acetyl-D-glucosamine", "L-iduronic acid", "colitose", "L-glycero-D-manno-heptose"],
 )

@@ -132,7 +132,10 @@ def from_symbol(text: str) -> Chain:
 
     Raises :class:`NameNotRecognisedError` (with the symbols it knows) otherwise.
     """
-    t = text.strip()
+    # the anomer of a free sugar does not change its chain (alpha-D-Glcp, β-L-Fucp); the ring letter may
+    # stand before a suffix, as 2-Carb-38 writes it (D-GlcpNAc, D-GlcpA)
+    t = re.sub(r"^(?:alpha|beta|α|β)-", "", text.strip())
+    t = re.sub(r"(?<=[a-z])[pf](?=NAc$|NGc$|N$|A$)", "", t)
     for pattern in (_HEPTOSE, _COMPACT_HEPTOSE):
         m = pattern.match(t)
         if m:
