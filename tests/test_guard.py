@@ -162,3 +162,12 @@ def test_an_id_shaped_like_a_formula_or_a_known_sugar_stays_an_unknown(tmp_path,
     out = json.loads(capsys.readouterr().out)
     survivors = out["unknowns"]["=D-mannose"]["survivors"]
     assert [s["name"] for s in survivors] == ["D-mannose"]
+
+
+def test_messages_show_letters_of_any_script_and_escape_controls():
+    from workbench.inputs import show
+
+    assert show("β-D-Glcp·H2O") == "'β-D-Glcp·H2O'"  # read as written, not as UTF-8 bytes
+    for hostile in ("a\x1b[2J", "x\u202e", "a\nb", "\x9b31m", "a\u2028b", "\ud800"):
+        shown = show(hostile)
+        assert shown.isprintable() and "\\" in shown

@@ -67,7 +67,9 @@ class _Refused(Exception):
 def show(value: Any, limit: int = 60) -> str:
     """A short, safe rendering of a value for a message (never recursive, never longer than ``limit``)."""
     if isinstance(value, str):
-        text = repr(value.encode("utf-8", "backslashreplace").decode("ascii", "backslashreplace"))
+        # repr keeps printable letters of any script (β, é, ·) and escapes every control, format (bidi)
+        # and separator character and lone surrogates, so the message stays one safe line
+        text = repr(value)
     elif isinstance(value, bool) or value is None:
         text = repr(value)
     elif isinstance(value, int):
