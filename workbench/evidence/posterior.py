@@ -186,61 +186,6 @@ def _normalised(message: dict[Chain, float]) -> tuple[dict[Chain, float], float]
     return {k: v / total for k, v in message.items()}, total
 
 
-def _forest(
-    group: list[str], domains: dict[str, list[Chain]], weights: Weights, edges: list[_Edge]
-) -> tuple[dict[str, dict[Chain, float]], float]:
-    """Exact marginals (unnormalised beliefs) and log Z of a tree-shaped group by sum-product."""
-    nbrs: dict[str, list[_Edge]] = defaultdict(list)
-    for e in edges:
-        nbrs[e.a].append(e)
-        nbrs[e.b].append(e)
-    root = group[0]
-    order: list[str] = []
-    parent: dict[str, tuple[str, _Edge] | None] = {root: None}
-    queue = deque([root])
-    while queue:
-        v = queue.popleft()
-        order.append(v)
-        for e in nbrs[v]:
-            u = e.other(v)
-            if u not in parent:
-                parent[u] = (v, e)
-                queue.append(u)
-    msgs: dict[tuple[str, str], dict[Chain, float]] = {}
-    log_scale = 0.0
-
-    def belief(v: str, skip: str | None) -> dict[Chain, float]:
-        b = dict(weights[v])
-        for e in nbrs[v]:
-            u = e.other(v)
-            if u == skip:
-                continue
-            m = msgs[(u, v)]
-            for x in b:
-                b[x] *= m.get(x, 0.0)
-        return b
-
-    for v in reversed(order[1:]):  # leaves to root
-        link = parent[v]
-        assert link is not None
-        p, e = link
-        m, scale = _normalised(_message(e, v, belief(v, p), domains[p]))
-        if scale <= 0:
-            return {}, float("-inf")
-        msgs[(v, p)] = m
-        log_scale += math.log(scale)
-    for v in order[1:]:  # root to leaves
-        link = parent[v]
-        assert link is not None
-        p, e = link
-        msgs[(p, v)], _ = _normalised(_message(e, p, belief(p, v), domains[v]))
-    beliefs = {v: belief(v, None) for v in group}
-    total = sum(beliefs[root].values())
-    if total <= 0:
-        return {}, float("-inf")
-    return beliefs, log_scale + math.log(total)
-
-
 def _enumerated(
     group: list[str],
     domains: dict[str, list[Chain]],
@@ -273,22 +218,25 @@ def _core_and_trees(
     edges: list[_Edge],
     limit: int,
 ) -> tuple[dict[str, dict[Chain, float]], float, int, int] | None:
-    """Exact marginals and log Z of a group with cycles: enumeration on its cycles, sum-product on the rest.
+    """Exact marginals and log Z of a linked group: enumeration on its cycles, sum-product on the rest.
 
     The variables off the 2-core hang in trees, each joined to the core at one
-    variable. Their messages (leaves inward, as in :func:`_forest`) become
-    extra weights of the core variables they join; the joint assignments of
-    the core alone are then enumerated (at most ``limit``), and messages go
-    back out into the trees from the core marginals. Exact: conditioning on
-    the core leaves a forest (Pearl's cutset conditioning, *Probabilistic
-    Reasoning in Intelligent Systems*, 1988, ch. 4.3). Returns
-    ``(beliefs, log Z, core assignments, core size)`` or None above the limit.
+    variable. Their messages (leaves inward) become extra weights of the core
+    variables they join; the joint assignments of the core alone are then
+    enumerated (at most ``limit``), and messages go back out into the trees
+    from the core marginals. Exact: conditioning on the core leaves a forest
+    (Pearl's cutset conditioning, *Probabilistic Reasoning in Intelligent
+    Systems*, 1988, ch. 4.3). A group without a cycle is one tree: its first
+    variable is the root, and this is plain two-pass sum-product. Returns
+    ``(beliefs, log Z, core assignments, unknowns on cycles)`` (0 and 0 for
+    a tree) or None above the limit.
     """
     neighbours: dict[str, list[str]] = defaultdict(list)
     for e in edges:
         neighbours[e.a].append(e.b)
         neighbours[e.b].append(e.a)
-    core = two_core(group, neighbours)
+    cyclic = two_core(group, neighbours)
+    core = cyclic or {group[0]}
     nbrs: dict[str, list[_Edge]] = defaultdict(list)
     for e in edges:
         nbrs[e.a].append(e)
@@ -324,17 +272,22 @@ def _core_and_trees(
         p, e = parent[v]
         m, scale = _normalised(_message(e, v, belief(v, p), domains[p]))
         if scale <= 0:
-            return {}, float("-inf"), 0, len(core)
+            return {}, float("-inf"), 0, len(cyclic)
         msgs[(v, p)] = m
         log_scale += math.log(scale)
     inner = {v: belief(v, None) for v in core}  # weights times the messages of the trees they carry
-    members = [v for v in group if v in core]
-    found = _enumerated(members, domains, inner, [c for c in constraints if c.a in core and c.b in core], limit)
-    if found is None:
-        return None
-    beliefs, log_z, count = found
+    if cyclic:
+        members = [v for v in group if v in core]
+        found = _enumerated(members, domains, inner, [c for c in constraints if c.a in core and c.b in core], limit)
+        if found is None:
+            return None
+        beliefs, log_z, count = found
+    else:  # a tree: the root's belief is its marginal
+        beliefs, count = dict(inner), 0
+        total = sum(next(iter(inner.values())).values())
+        log_z = math.log(total) if total > 0 else float("-inf")
     if log_z == float("-inf"):
-        return {}, log_z, count, len(core)
+        return {}, log_z, count, len(cyclic)
     for v in order:  # back out into the trees
         p, e = parent[v]
         if p in core:
@@ -347,7 +300,7 @@ def _core_and_trees(
         msgs[(p, v)], _ = _normalised(_message(e, p, rest, domains[v]))
     for v in order:
         beliefs[v] = belief(v, None)
-    return beliefs, log_scale + log_z, count, len(core)
+    return beliefs, log_scale + log_z, count, len(cyclic)
 
 
 def joint_posterior(
@@ -384,12 +337,6 @@ def joint_posterior(
         if not edges:
             beliefs = {v: dict(full_weights[v]) for v in group}
             log_z = sum(math.log(s) if (s := sum(beliefs[v].values())) > 0 else float("-inf") for v in group)
-        elif len(edges) == len(group) - 1:
-            try:
-                beliefs, log_z = _forest(group, domains, full_weights, edges)
-                method = "exact: sum-product on a forest of relations"
-            except _TooLarge:
-                beliefs = None
         else:
             try:
                 found = _core_and_trees(group, domains, full_weights, sub, edges, limit)
@@ -397,9 +344,12 @@ def joint_posterior(
                 found = None
             if found is not None:
                 beliefs, log_z, count, cyclic = found
-                method = f"exact: enumeration of {count} joint assignments"
-                if cyclic < len(group):
-                    method += f" of the {cyclic} unknowns on cycles, sum-product on the rest"
+                if not cyclic:
+                    method = "exact: sum-product on a forest of relations"
+                else:
+                    method = f"exact: enumeration of {count} joint assignments"
+                    if cyclic < len(group):
+                        method += f" of the {cyclic} unknowns on cycles, sum-product on the rest"
         if beliefs is None:
             beliefs = {v: dict(full_weights[v]) for v in group}
             log_z = sum(math.log(max(sum(b.values()), 1e-300)) for b in beliefs.values())
