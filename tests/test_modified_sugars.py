@@ -18,6 +18,7 @@ from workbench.chem.predictions import predict as record_of
 from workbench.chem.predictions import predictions_json
 from workbench.chem.reactions import Uncertain, aldaric_acid, osazone, shorten
 from workbench.chem.symbols import from_symbol, symbol
+from workbench.errors import NameNotRecognisedError
 from workbench.evidence import solve
 from workbench.evidence.observations import observation_from_dict
 from workbench.evidence.outcomes import NO_PREDICTION, fits
@@ -85,6 +86,16 @@ def test_symbols_give_the_structure_opsin_reads_for_the_name(opsin, text, name):
 )
 def test_bare_symbols_take_the_conventional_series(text, expected):
     assert from_symbol(text) == from_name(expected)
+
+
+def test_symbols_in_capitals_are_read_as_symbols_when_no_smiles():
+    # GLCNAC is no SMILES (RDKit reads no "L" element): it is GlcNAc in capitals (2-Carb-38 symbols)
+    assert resolve("GLCNAC") == from_name("N-acetyl-D-glucosamine")
+    assert resolve("L-RHA") == from_name("L-rhamnose")
+    with pytest.raises(NameNotRecognisedError, match="ulosonic"):
+        resolve("KDO")  # refused for the reason Kdo is, not as an unreadable SMILES
+    glc = from_name("D-glucose")
+    assert resolve(to_smiles(glc)) == glc  # a SMILES stays a SMILES
 
 
 @pytest.mark.parametrize(

@@ -17,7 +17,7 @@ from rdkit.Chem import rdCIPLabeler
 from workbench.chem.chain import LEFT, RIGHT, STEREO_GROUPS, Chain
 from workbench.chem.names import display_name, from_name, ring_name
 from workbench.chem.smiles import RingForm, canonical, quiet_rdkit, ring_forms, to_smiles
-from workbench.chem.symbols import ULOSONIC_REASON, from_symbol
+from workbench.chem.symbols import ULOSONIC_REASON, from_symbol, symbol_in_capitals
 from workbench.errors import NameNotRecognisedError, StructureError
 
 __all__ = ["Compound", "from_smiles", "read_compound", "resolve", "open_ring"]
@@ -236,9 +236,16 @@ def read_compound(text: str) -> Compound:
             if "ulosonic" in symbol_error.reason or "ulosonic" in text:
                 raise NameNotRecognisedError(text, ULOSONIC_REASON) from symbol_error
         if any(ch in text for ch in "=@[]()") or text.strip().isupper():
+            spelt = symbol_in_capitals(text)
             try:
                 chain = from_smiles(text.strip())
+            except NameNotRecognisedError:
+                if spelt is not None:  # GLCNAC, KDO: a symbol in capitals that is no SMILES
+                    return read_compound(spelt)
+                raise
             except StructureError as err:
+                if spelt is not None:
+                    return read_compound(spelt)
                 raise NameNotRecognisedError(text, str(err)) from err
             with quiet_rdkit():
                 return Compound(chain, _glycoside_of(chain, text.strip()))

@@ -191,6 +191,20 @@ def symbol(chain: Chain) -> str | None:
     return None
 
 
+def symbol_in_capitals(text: str) -> str | None:
+    """The symbol written in capitals or small letters (``GLCNAC`` -> ``GlcNAc``, ``kdo`` -> ``Kdo``), or None.
+
+    Only a whole, unambiguous match counts; series prefixes are kept (``D-GLCNAC`` -> ``D-GlcNAc``).
+    """
+    m = re.match(r"^(?P<series>[DLdl]-)?(?P<sym>[A-Za-z0-9]+)$", text.strip())
+    if m is None:
+        return None
+    matches = [k for k in (*SYMBOLS, *ULOSONIC) if k.lower() == m["sym"].lower()]
+    if len(matches) != 1 or matches[0] == m["sym"]:
+        return None
+    return (m["series"] or "").upper() + matches[0]
+
+
 def known_symbols() -> list[str]:
     """Every symbol accepted, without series."""
     return sorted(SYMBOLS) + ["LDmanHep", "DDmanHep", "L,D-Hep", "D,D-Hep"]
