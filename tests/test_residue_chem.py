@@ -56,7 +56,7 @@ def test_terminal_residue_is_the_glucopyranoside():
         (R("L-rhamnose", "pyranose", "alpha", 2), "->2)-alpha-L-Rhap-(1->"),
         (R("L-arabinose", "furanose", "alpha", 5), "->5)-alpha-L-Araf-(1->"),
         (R("D-fructose", "furanose", "beta", 1), "->1)-beta-D-Fruf-(2->"),
-        (R("D-galacturonic acid", "pyranose", "alpha", 4), "->4)-alpha-D-GalAp-(1->"),
+        (R("D-galacturonic acid", "pyranose", "alpha", 4), "->4)-alpha-D-GalpA-(1->"),
         (R("D-glucose", "pyranose", "beta", 4, 6), "->4,6)-beta-D-Glcp-(1->"),
     ],
 )
@@ -285,8 +285,8 @@ def test_both_anomers_give_one_alditol_acetate(linked):
 
 def test_n_acetylglucosamine_residues():
     # permethylation N-methylates the acetamido group: 2-deoxy-2-(N-methylacetamido) alditol acetates
-    # (Björndal et al. 1970 style names [from memory]); terminal GlcNAcp consumes 1 IO4- (C-3/C-4) and gives
-    # no formic acid, a 4-linked GlcNAcp (chitin) resists periodate [common practice, from memory]
+    # (Björndal et al. 1970 style names [from memory]); terminal GlcpNAc consumes 1 IO4- (C-3/C-4) and gives
+    # no formic acid, a 4-linked GlcpNAc (chitin) resists periodate [common practice, from memory]
     glcnac = "N-acetyl-D-glucosamine"
     terminal = R(glcnac, "pyranose", "beta")
     assert alditol_acetate(terminal).name == (
@@ -296,4 +296,4 @@ def test_n_acetylglucosamine_residues():
     four = R(glcnac, "pyranose", "beta", 4)
     assert alditol_acetate(four).acetyl == (1, 4, 5) and alditol_acetate(four).methyl == (3, 6)
     assert residue_periodate(four).as_tuple() == (0, 0, 0)
-    assert four.name == "->4)-beta-D-GlcNAcp-(1->"  # IUPAC symbol GlcNAc (2-Carb-38)
+    assert four.name == "->4)-beta-D-GlcpNAc-(1->"  # ring letter after the parent symbol, before NAc (2-Carb-38)

@@ -31,6 +31,27 @@ def test_residue_unknown_enumerates_rings_anomers_and_linkages():
     assert solve(project).scope_counts["R1"] == 44
 
 
+def test_the_default_residue_scope_holds_the_n_acetyl_hexosamines():
+    # chitin is (1->4)-linked 2-acetamido-2-deoxy-beta-D-glucopyranose; its linkage analysis gives the
+    # 4-linked GlcNAc alditol acetate, methyl at O-3 and O-6, acetyl at C-1, C-4, C-5 (common practice)
+    project = projects.project(
+        [{"id": "R", "type": "residue"}],
+        [
+            {
+                "id": "M1",
+                "kind": "methylation_analysis",
+                "unknown": "R",
+                "methyl": [3, 6],
+                "acetyl": [1, 4, 5],
+                "sugar": "N-acetyl-D-glucosamine",
+            },
+            {"id": "A1", "kind": "anomer", "unknown": "R", "value": "beta"},
+            {"id": "F1", "kind": "ring_form", "unknown": "R", "value": "pyranose"},
+        ],
+    )
+    assert _names(solve(project), "R") == ["->4)-beta-D-GlcpNAc-(1->"]
+
+
 def test_four_linked_pyranose_and_five_linked_furanose_stay_ambiguous():
     # a 4-linked pyranose and a 5-linked furanose give the same alditol acetate, the same periodate uptake
     # (1 IO4-, no HCOOH) and the same Smith fragment (erythritol) (REFERENCE_VALUES.md, common practice)

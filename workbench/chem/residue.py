@@ -23,6 +23,7 @@ arrows and Greek letters, ``→4)-α-D-Glcp-(1→``.
 from __future__ import annotations
 
 import itertools
+import re
 from collections.abc import Iterator
 from dataclasses import dataclass
 from functools import cached_property, lru_cache
@@ -179,9 +180,16 @@ class Residue:
 
     @cached_property
     def symbol(self) -> str:
-        """Condensed symbol with ring letter, e.g. ``alpha-D-Glcp``."""
+        """Condensed symbol with ring letter, e.g. ``alpha-D-Glcp``, ``beta-D-GlcpNAc``, ``alpha-L-IdopA``.
+
+        The ring letter follows the parent's symbol, before a suffix for an
+        amino, N-acetyl or uronic group (IUPAC-IUBMB 1996, 2-Carb-38).
+        """
         series, sym = sugar_symbol(self.chain)
         head = f"{self.anomer}-{series}-" if series else f"{self.anomer}-"
+        m = re.match(r"^(?P<root>.*[a-z])(?P<suffix>NAc|NGc|N|A)$", sym)
+        if m:
+            return f"{head}{m['root']}{self.ring[0]}{m['suffix']}"
         return f"{head}{sym}{self.ring[0]}"
 
     @cached_property
@@ -301,15 +309,16 @@ _RESIDUE_KEYS = ("ring", "anomer", "max_linked")
 class ResidueScope(Scope):
     """What a residue unknown may be: the sugars (the keys of :class:`Scope`), rings, anomers, linkage.
 
-    Defaults: the pentoses, hexoses, 6-deoxyhexoses and hexuronic acids of
-    both series, aldoses and 2-ketoses (carbons 5-6, modifications none,
-    deoxy:6, uronic); both rings, both anomers, at most 2 linked positions.
+    Defaults: the pentoses, hexoses, 6-deoxyhexoses, hexuronic acids and
+    2-acetamido-2-deoxy aldoses (GlcNAc, GalNAc, ManNAc ...) of both series,
+    aldoses and 2-ketoses (carbons 5-6, modifications none, deoxy:6, uronic,
+    acetamido:2); both rings, both anomers, at most 2 linked positions.
     With ``sugars`` (names) the candidates are those sugars, filtered by the
     other sugar keys only where they are given.
     """
 
     carbons: tuple[int, ...] = (5, 6)
-    modifications: tuple[str, ...] = ("none", "deoxy:6", "uronic")
+    modifications: tuple[str, ...] = ("none", "deoxy:6", "uronic", "acetamido:2")
     ring: tuple[str, ...] = RINGS
     anomer: tuple[str, ...] = ANOMERS
     max_linked: int = 2

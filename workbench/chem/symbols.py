@@ -128,7 +128,7 @@ def _heptose(outer: str, inner: str, cfg: str, text: str) -> Chain:
 
 
 def from_symbol(text: str) -> Chain:
-    """The structure of an IUPAC symbol such as ``L-Rha``, ``GlcNAc``, ``D-GlcAp`` or ``LDmanHep``.
+    """The structure of an IUPAC symbol such as ``L-Rha``, ``GlcNAc``, ``D-GlcpA`` or ``LDmanHep``.
 
     Raises :class:`NameNotRecognisedError` (with the symbols it knows) otherwise.
     """
