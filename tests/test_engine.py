@@ -387,3 +387,67 @@ def test_ketose_anomer_ratio_is_weighed_with_the_ketose_error():
     sol = solve(p)
     assert "D-fructose" in names(sol, "U")
     assert any("ketose" in n[0] for n in sol.flags["U"].values())
+
+
+def _naive_two_core(edges: list[tuple[str, str]], nodes: set[str]) -> set[str]:
+    """The 2-core by its definition: drop any node of degree below 2 until none is left (independent check)."""
+    core = set(nodes)
+    while True:
+        low = {v for v in core if sum(1 for a, b in edges if v in (a, b) and a in core and b in core) < 2}
+        if not low:
+            return core
+        core -= low
+
+
+@pytest.mark.parametrize(
+    "edges",
+    [
+        [("a", "b"), ("b", "c"), ("c", "d")],  # a path: no cycle
+        [("a", "b"), ("c", "d"), ("d", "e")],  # two trees: a leaf is met again after it was peeled
+        [("h", "a"), ("h", "b"), ("h", "c"), ("c", "d"), ("c", "e")],  # a tree with a branching node
+        [("a", "b"), ("b", "c"), ("c", "a"), ("c", "d"), ("d", "e"), ("a", "f")],  # a triangle with tails
+        [("a", "b"), ("b", "c"), ("c", "a"), ("c", "d"), ("d", "e"), ("e", "f"), ("f", "g"), ("g", "e")],
+        [("a", "b"), ("b", "c"), ("c", "d"), ("d", "a"), ("a", "c"), ("d", "x"), ("x", "y"), ("y", "z")],
+    ],
+)
+def test_two_core_keeps_exactly_the_cycles_and_what_joins_them(edges):
+    from collections import defaultdict
+
+    from workbench.evidence.network import two_core
+
+    nodes = {v for e in edges for v in e}
+    neighbours = defaultdict(list)
+    for a, b in edges:
+        neighbours[a].append(b)
+        neighbours[b].append(a)
+    assert two_core(sorted(nodes), neighbours) == _naive_two_core(edges, nodes)
+
+
+def test_narrowing_the_end_of_a_chain_reaches_its_far_end():
+    """The last observation narrows U0; arc consistency must carry it through U1 to U2 (the replay starts
+    from what the observation touches, so propagation beyond the first arc is what is checked)."""
+    scope = {"carbons": [5, 6], "carbonyl": ["aldose"], "series": ["D"]}
+    p = project(
+        [{"id": f"U{i}", "scope": scope} for i in range(3)],
+        [
+            {
+                "id": "E0",
+                "kind": "same_product",
+                "reaction": "osazone",
+                "relation": "identical",
+                "members": ["U0", "U1"],
+            },
+            {
+                "id": "E1",
+                "kind": "same_product",
+                "reaction": "osazone",
+                "relation": "identical",
+                "members": ["U1", "U2"],
+            },
+            # a meso aldaric acid: D-ribose, D-xylose, D-allose, D-galactose (common practice)
+            {"id": "E2", "kind": "aldaric_acid", "unknown": "U0", "optically_active": False},
+        ],
+    )
+    expected, _ = brute_force(p)
+    assert {u: set(c) for u, c in solve(p).survivors.items()} == expected
+    assert len(expected["U2"]) < 12  # the meso reading reaches U2 through two osazone relations

@@ -18,7 +18,7 @@ import json
 import math
 
 import pytest
-from projects import over_scope, project_dict
+from projects import over_scope, project, project_dict
 
 from workbench.chem.names import display_name
 from workbench.chem.parse import resolve
@@ -329,3 +329,19 @@ def test_board_and_text_show_a_probability_bar_per_survivor():
     text = solution_text(solution)
     first = next(line for line in text.splitlines() if line.strip().startswith("D-glucose"))
     assert "#" in first and f"{solution.probability('U', resolve('D-glucose')):.3f}" in first
+
+
+def test_relations_on_doubtful_products_are_summed_exactly():
+    """Candidates whose osazone is doubtful (N-acetyl hexoses) pair with anything: the posterior's wildcard
+    index must weigh them like brute-force enumeration does."""
+    scope = {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"], "modifications": ["none", "acetamido:2"]}
+    linked = project(
+        [{"id": "A", "scope": scope}, {"id": "B", "scope": scope}],
+        [
+            {"id": "Q1", "kind": "specific_rotation", "unknown": "A", "value": 50.0, "reliability": 0.8},
+            {"id": "Q2", "kind": "anomer_ratio", "unknown": "B", "alpha_fraction": 0.4, "reliability": 0.9},
+            {"id": "R1", "kind": "same_product", "reaction": "osazone", "members": ["A", "B"], "relation": "identical"},
+        ],
+    )
+    solution = _solve_against_brute_force(linked)
+    assert solution.posterior_methods["A"] == "exact: sum-product on a forest of relations"

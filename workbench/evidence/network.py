@@ -200,8 +200,9 @@ def two_core(variables: Iterable[str], neighbours: Mapping[str, Iterable[str]]) 
 
     Empty exactly when the graph is a forest (parallel edges merged beforehand).
     """
-    core = set(variables)
-    nbrs = {v: [u for u in neighbours.get(v, ()) if u in core] for v in core}
+    order = list(dict.fromkeys(variables))  # the caller's order, so the peeling is the same on every run
+    core = set(order)
+    nbrs = {v: [u for u in neighbours.get(v, ()) if u in core] for v in order}
     degree = {v: len(n) for v, n in nbrs.items()}
     stack = [v for v, k in degree.items() if k <= 1]
     while stack:
