@@ -3,6 +3,8 @@
 from __future__ import annotations
 
 import itertools
+import json
+import random
 from pathlib import Path
 
 import pytest
@@ -12,7 +14,7 @@ from projects import project
 
 from workbench.chem import catalogue, display_name
 from workbench.chem.catalogue import Scope
-from workbench.evidence import load_project, solve
+from workbench.evidence import load_project, project_from_dict, solve
 from workbench.evidence.engine import constraints_of, joint_worlds, unary_domains
 
 DATA = Path(__file__).parent / "data"
@@ -451,3 +453,23 @@ def test_narrowing_the_end_of_a_chain_reaches_its_far_end():
     expected, _ = brute_force(p)
     assert {u: set(c) for u, c in solve(p).survivors.items()} == expected
     assert len(expected["U2"]) < 12  # the meso reading reaches U2 through two osazone relations
+
+
+@pytest.mark.parametrize("sample", sorted((Path(__file__).resolve().parent.parent / "sample_projects").glob("*.json")))
+def test_the_replay_one_observation_at_a_time_equals_one_solve_of_all(sample):
+    """Solve replays observations incrementally; the survivors must be those of one full solve, in any order."""
+    from workbench.evidence.engine import _survivors
+
+    base = json.loads(sample.read_text(encoding="utf-8"))
+    rng = random.Random(7)
+    for _ in range(4):
+        observations = list(base["observations"])
+        rng.shuffle(observations)
+        p = project_from_dict(dict(base, observations=observations))
+        solution = solve(p)
+        full = _survivors(p, list(p.observations))
+        if solution.conflicts:
+            assert full is None
+            continue
+        assert full is not None
+        assert {u: set(full[u]) for u in p.unknown_ids} == {u: set(solution.survivors[u]) for u in p.unknown_ids}

@@ -581,8 +581,10 @@ def solve(project: Project, disabled: Iterable[str] = ()) -> Solution:
             new_cons, new_fixed = constraints_of(project, obs)
         domains.update(_fixed_domains({**fixed, **new_fixed}))
         # `current` holds supported (so arc-consistent) domains of `constraints`: only what this
-        # observation touches needs propagating.
-        touched = {obs.unknown} if obs.UNARY else {v for c in new_cons for v in (c.a, c.b)} | set(new_fixed)
+        # observation touches needs propagating, and the known sugars and hidden variables, whose
+        # domains start afresh at every step.
+        touched = {obs.unknown} if obs.UNARY else {v for c in new_cons for v in (c.a, c.b)}
+        touched |= set(fixed) | set(new_fixed)
         empty = any(not d for d in domains.values())
         result = None if empty else supported_domains(domains, constraints + new_cons, around=touched)
         trial = None if result is None else {k: tuple(v) for k, v in result.items() if not k.startswith(AUXILIARY)}
