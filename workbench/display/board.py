@@ -79,7 +79,7 @@ def survivors_html(solution, uid: str, limit: int = 24, medium: str = "svg") -> 
         why = "the evidence is contradictory" if solution.contradictory else "no candidate fits"
         return f'<p style="font-family:{FONT};color:{MUTED}">No candidate survives: {esc(why)}.</p>'
     if not isinstance(survivors[0], Chain):  # glycan residues: ring drawings with linked positions
-        return residue_cards_html(solution, uid, limit)
+        return residue_cards_html(solution, uid, limit, medium)
     probability = solution.probability if solution.probabilities else None
     survivors = in_configurational_order(survivors)
     if probability is not None:  # most probable first; equal probabilities stay in the conventional order
