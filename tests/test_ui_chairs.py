@@ -84,3 +84,17 @@ def test_panel_furanose_has_no_chair_but_a_shape(two_left):
     panel.show_button.click()
     assert all(v.chair is None for v in panel.views)
     assert 'class="ss-chair"' not in panel.facts.value and "Furanose couplings" in panel.facts.value
+
+
+def test_panels_draw_without_the_library_and_share_one_loader_that_carries_it(two_left):
+    from workbench.ui.chairs import viewer_loader
+
+    first, second = ChairPanel(two_left), ChairPanel(two_left)
+    loader = viewer_loader()
+    assert loader in first.widget.children and loader in second.widget.children  # one widget, shown by both
+    first.show_button.click()
+    second.show_button.click()
+    assert "var exports, module, define;" not in first.viewer  # the view waits for the page's copy
+    assert "setTimeout(draw, 100)" in first.viewer and first.viewer.count('class="ss-3d-cell"') == 2
+    texts = [o["data"]["text/html"] for o in loader.outputs]
+    assert len(texts) == 1 and texts[0].count("var exports, module, define;") == 1  # the library, once

@@ -24,6 +24,8 @@ from pathlib import Path
 import pytest
 from lab_helpers import CHROMIUM, FLAGS, ROOT, free_port
 
+from workbench.ui.notebook import SAVE_HOOK
+
 
 def pytest_collection_modifyitems(config, items):
     """Skip the browser tests unless ``-m browser`` selects them (they need Chromium and take a minute)."""
@@ -56,10 +58,15 @@ def lab(lab_root):
         JUPYTER_RUNTIME_DIR=str(home / "runtime"),
         JUPYTER_CONFIG_DIR=str(home / "config"),
     )
+    # as `stereosieve lab` runs it: notebooks slimmed on save; widget state saved with them (as the shipped ones)
+    settings = home / "config" / "lab" / "user-settings" / "@jupyter-widgets" / "jupyterlab-manager"
+    settings.mkdir(parents=True, exist_ok=True)
+    (settings / "plugin.jupyterlab-settings").write_text('{"saveState": true}', encoding="utf-8")
     command = [
         sys.executable,
         "-m",
         "jupyterlab",
+        f"--ContentsManager.pre_save_hook={SAVE_HOOK}",
         "--no-browser",
         f"--port={port}",
         "--ip=127.0.0.1",

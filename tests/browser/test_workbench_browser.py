@@ -127,6 +127,48 @@ def test_a_survivor_in_3d_with_no_network(lab, browser_page, workbench_notebook)
     assert "py3Dmol.view" not in page.locator(".ss-chairs-panel").first.inner_text()
 
 
+def test_3d_views_share_the_page_library_and_the_saved_notebook_leaves_it_out(
+    lab, lab_root, browser_page, workbench_notebook
+):
+    page = browser_page
+    _open_and_run(page, lab, workbench_notebook)
+    page.locator(".ss-live .lm-TabBar-tab", has_text="Chairs in 3D").first.click()
+    panel = page.locator(".ss-chairs-panel").first
+    panel.locator("button", has_text="Show in 3D").first.click()
+    page.wait_for_selector(".ss-3d[data-state='ready']", timeout=180_000)
+    first = page.locator(".ss-3d").first.get_attribute("id")
+    panel.locator("select").nth(1).select_option(label="α-pyranose")  # another ring form, drawn anew
+    panel.locator("button", has_text="Show in 3D").first.click()
+    page.wait_for_function(
+        f"(() => {{ const v = document.querySelector('.ss-3d'); return v && v.id !== {first!r} "
+        "&& v.getAttribute('data-state') === 'ready'; })()",
+        timeout=180_000,
+    )
+    assert page.locator(".ss-3d-loader").count() >= 1  # the library came once, through the session's loader
+    page.locator(".ss-3d").first.scroll_into_view_if_needed()
+    shot(page, "workbench-3d-again")
+    saved = lab_root / workbench_notebook
+    before = saved.stat().st_mtime_ns
+    for _attempt in range(3):  # File > Save Notebook (asked again if the menu missed the click)
+        page.locator(".lm-MenuBar-itemLabel", has_text="File").first.click()
+        item = page.locator(".lm-Menu-itemLabel", has_text="Save Notebook").first
+        item.wait_for(state="visible")
+        item.click()
+        deadline = time.monotonic() + 30
+        while time.monotonic() < deadline and (
+            saved.stat().st_mtime_ns == before or "ss3d-" not in saved.read_text(encoding="utf-8")
+        ):
+            time.sleep(0.5)
+        if saved.stat().st_mtime_ns != before:
+            break
+    text = saved.read_text(encoding="utf-8")
+    assert "ss3d-" in text and "application/vnd.jupyter.widget-state+json" in text  # saved with its widget state
+    assert text.count("var exports, module, define;") == 0  # no copy of the library in the file
+    assert "library left out of the saved copy" in text  # the session's loader was saved, slimmed on the way
+    assert len(text.encode("utf-8")) < 500_000  # the library alone is 538 KB
+    assert page.offsite == []
+
+
 def test_a_saved_notebook_opened_untrusted_reads(lab, lab_root, browser_page):
     # the quick-start notebook as saved in the repository (executed, widget state included), never trusted here
     shutil.copyfile(ROOT / "notebooks" / "01_quick_start.ipynb", lab_root / "received.ipynb")
@@ -150,6 +192,27 @@ def test_a_saved_notebook_opened_untrusted_reads(lab, lab_root, browser_page):
     text = page.locator(".jp-Notebook").first.inner_text()
     for repr_text in _REPRS:
         assert repr_text not in text
+
+
+def test_a_slimmed_saved_notebook_opened_trusted_restores_its_widgets(lab, lab_root, browser_page):
+    # the shipped quick-start notebook holds only the widget models its views show, layouts without unset values
+    target = lab_root / "trusted.ipynb"
+    shutil.copyfile(ROOT / "notebooks" / "01_quick_start.ipynb", target)
+    env = dict(os.environ, JUPYTER_DATA_DIR=str(lab_root.parent / f"{lab_root.name}-jupyter" / "data"))
+    subprocess.run([sys.executable, "-m", "nbformat.sign", str(target)], env=env, check=True, capture_output=True)
+    page = browser_page
+    page.goto(f"{lab}/lab/tree/trusted.ipynb")
+    here = ".jp-NotebookPanel:not(.lm-mod-hidden)"  # this notebook's tab, not one a test before left open
+    page.wait_for_selector(f"{here} .jp-Notebook .jp-Cell", state="attached")
+    live = page.locator(f"{here} .ss-live").first
+    live.wait_for(state="attached", timeout=90_000)
+    live.scroll_into_view_if_needed()
+    live.locator(".widget-tab .lm-TabBar-tab", has_text="Chairs in 3D").first.wait_for(state="visible")
+    page.wait_for_timeout(1_000)  # let the cells around it render
+    shot(page, "trusted-saved-widgets")
+    assert "Record a result" in live.inner_text() and "Chairs in 3D" in live.inner_text()
+    missing = [e for e in page.console_errors if "model" in e.lower() and ("not found" in e.lower() or "find" in e)]
+    assert missing == []
 
 
 def test_the_same_notebook_as_nbconvert_html_reads_offline(tmp_path, browser_page):

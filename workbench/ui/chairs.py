@@ -3,7 +3,7 @@
 Geometry, chair energies, couplings and anomer fractions all come from
 :mod:`workbench.conformers` (RDKit ETKDG + MMFF94, Angyal's scheme, the
 Haasnoot-de Leeuw-Altona equation). The 3D view is 3Dmol.js, shipped with the package and inlined in the page
-(no network; :mod:`workbench.display.molview`); axial groups
+once per kernel session by :func:`viewer_loader` (no network; :mod:`workbench.display.molview`); axial groups
 carry an orange sphere and label, equatorial ones a green one. Beside it, the
 same chair drawn flat (SVG) and the predictions, which are also what the
 notebook keeps as its static copy.
@@ -28,12 +28,12 @@ from workbench.chem.smiles import RingForm, ring_forms
 from workbench.conformers import conformer_mol, ring_conformers, ring_layout
 from workbench.data import viewer_library
 from workbench.display.chairs import AXIAL_COLOUR, EQUATORIAL_COLOUR, chair_svg, ring_predictions_html
-from workbench.display.molview import Mark, Scene, viewer_html
+from workbench.display.molview import Mark, Scene, loader_html, viewer_html
 from workbench.display.palette import FONT, INK, MUTED, RULE, esc
 from workbench.glossary import conformation_html, conformation_text, term
 from workbench.ui.base import Panel, heading
 
-__all__ = ["ChairPanel", "ChairView", "chair_views", "view_3d"]
+__all__ = ["ChairPanel", "ChairView", "chair_views", "view_3d", "viewer_loader"]
 
 _FORMS = ("alpha_pyranose", "beta_pyranose", "alpha_furanose", "beta_furanose")
 _CHAIRS = (
@@ -116,8 +116,14 @@ def chair_views(chains: Sequence, form_key: str, chair: str | None) -> tuple[lis
     return views, notes
 
 
-def view_3d(views: Sequence[ChairView], width: int = 300, height: int = 300, uid: str | None = None) -> str:
-    """HTML of a 3D viewer row, one cell per view, axial/equatorial groups marked (library inlined, no network)."""
+def view_3d(
+    views: Sequence[ChairView], width: int = 300, height: int = 300, uid: str | None = None, inline: bool = True
+) -> str:
+    """HTML of a 3D viewer row, one cell per view, axial/equatorial groups marked (no network).
+
+    ``inline`` puts the library's text in the fragment (a page of its own);
+    ``False`` leaves it to the session's :func:`viewer_loader`.
+    """
     scenes = []
     for v in views:
         marks = []
@@ -127,7 +133,25 @@ def view_3d(views: Sequence[ChairView], width: int = 300, height: int = 300, uid
                 marks.append(Mark(f"{label} {word}", x, y, z, colour))
         caption = f"{v.name}, {term(v.form.key)}" + (f", {conformation_text(v.shape)}" if v.shape else "")
         scenes.append(Scene(caption, v.molblock, tuple(marks)))
-    return viewer_html(scenes, viewer_library(), uid or next(_VIEW_IDS), width, height)
+    return viewer_html(scenes, viewer_library() if inline else None, uid or next(_VIEW_IDS), width, height)
+
+
+_LOADER: list[w.Output] = []
+
+
+def viewer_loader(load: bool = False) -> w.Output:
+    """The kernel's one output that carries the viewer library to the page; ``load`` fills it (once).
+
+    Every chairs panel shows this same widget, so the notebook (and its saved
+    widget state) holds the library's text once however many views are drawn.
+    """
+    if not _LOADER:
+        _LOADER.append(w.Output(layout=w.Layout(height="0px", overflow="hidden")))
+    out = _LOADER[0]
+    if load and not out.outputs:  # set as state (not captured output), so it works from any callback
+        data = {"text/html": loader_html(viewer_library()), "text/plain": "3D viewer library"}
+        out.outputs = ({"output_type": "display_data", "data": data, "metadata": {}},)
+    return out
 
 
 def views_html(views: Sequence[ChairView], notes: Sequence[str] = (), medium: str = "svg") -> str:
@@ -199,6 +223,7 @@ class ChairPanel(Panel):
                 w.HBox([self.unknown, self.form]),
                 w.HBox([self.survivors, w.VBox([self.chair, self.show_button])]),
                 legend,
+                viewer_loader(),
                 self.out3d,
                 self.facts,
                 self.notices.widget,
@@ -246,7 +271,8 @@ class ChairPanel(Panel):
         self.facts.value = views_html(self.views, self.notes)
         self.out3d.clear_output()
         if self.views:
-            self.viewer = view_3d(self.views)
+            self.viewer = view_3d(self.views, inline=False)
+            viewer_loader(load=True)
             if get_ipython() is not None:  # outside a kernel (tests, scripts) there is nowhere to draw
                 names = ", ".join(v.name for v in self.views)
                 with self.out3d:

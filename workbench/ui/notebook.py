@@ -43,9 +43,13 @@ __all__ = [
     "launch_app",
     "run_server",
     "notebook_for",
+    "SAVE_HOOK",
 ]
 
 log = logging.getLogger(__name__)
+
+SAVE_HOOK = "workbench.saved_views.pre_save_hook"
+"""The Jupyter server hook (import string) that slims each notebook as JupyterLab saves it."""
 
 DEMO_COPY = "stereosieve_demo.json"
 PLACEHOLDER = "__PROJECT__"
@@ -157,8 +161,12 @@ def _is_root() -> bool:
 
 
 def lab_command(notebook: Path, browser: bool = True, port: int | None = None, extra: Sequence[str] = ()) -> list[str]:
-    """The JupyterLab command line for ``notebook``; ``extra`` options go last, as given."""
-    command = [sys.executable, "-m", "jupyterlab", notebook.name]
+    """The JupyterLab command line for ``notebook``; ``extra`` options go last, as given.
+
+    Notebooks are slimmed as they are saved (:func:`workbench.saved_views.pre_save_hook`: the 3D viewer
+    library, which a saved view cannot run, is left out of the file).
+    """
+    command = [sys.executable, "-m", "jupyterlab", notebook.name, f"--ContentsManager.pre_save_hook={SAVE_HOOK}"]
     if not browser:
         command.append("--no-browser")
     if port is not None:
