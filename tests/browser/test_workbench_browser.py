@@ -174,22 +174,23 @@ def test_a_saved_notebook_opened_untrusted_reads(lab, lab_root, browser_page):
     shutil.copyfile(ROOT / "notebooks" / "01_quick_start.ipynb", lab_root / "received.ipynb")
     page = browser_page
     page.goto(f"{lab}/lab/tree/received.ipynb")
-    page.wait_for_selector(".jp-Notebook .ss-fischer-text", state="attached", timeout=90_000)
+    here = ".jp-NotebookPanel:not(.lm-mod-hidden)"  # this notebook's tab, not one a test before left open
+    page.wait_for_selector(f"{here} .jp-Notebook .ss-fischer-text", state="attached", timeout=90_000)
     # JupyterLab renders outputs as they come into view: wait for the cards rather than count at once
     page.wait_for_function(
-        "document.querySelectorAll('.jp-OutputArea-output .ss-fischer-text').length >= 3", timeout=60_000
+        f"document.querySelectorAll('{here} .jp-OutputArea-output .ss-fischer-text').length >= 3", timeout=60_000
     )
-    cards = page.locator(".jp-OutputArea-output .ss-fischer-text")
+    cards = page.locator(f"{here} .jp-OutputArea-output .ss-fischer-text")
     first = cards.first
     first.scroll_into_view_if_needed()
     first.wait_for(state="visible", timeout=30_000)
     assert "──┼──" in first.inner_text() and "CHO" in first.inner_text()
     assert len(first.inner_text().splitlines()) >= 11  # drawn line by line, not run-on text
-    saved = page.locator(".ss-snapshot").first
+    saved = page.locator(f"{here} .ss-snapshot").first
     saved.scroll_into_view_if_needed()
     saved.wait_for(state="visible", timeout=30_000)
     shot(page, "untrusted-saved-view")
-    text = page.locator(".jp-Notebook").first.inner_text()
+    text = page.locator(f"{here} .jp-Notebook").first.inner_text()
     for repr_text in _REPRS:
         assert repr_text not in text
 
@@ -204,13 +205,21 @@ def test_a_slimmed_saved_notebook_opened_trusted_restores_its_widgets(lab, lab_r
     page.goto(f"{lab}/lab/tree/trusted.ipynb")
     here = ".jp-NotebookPanel:not(.lm-mod-hidden)"  # this notebook's tab, not one a test before left open
     page.wait_for_selector(f"{here} .jp-Notebook .jp-Cell", state="attached")
-    live = page.locator(f"{here} .ss-live").first
-    live.wait_for(state="attached", timeout=90_000)
-    live.scroll_into_view_if_needed()
-    live.locator(".widget-tab .lm-TabBar-tab", has_text="Chairs in 3D").first.wait_for(state="visible")
-    page.wait_for_timeout(1_000)  # let the cells around it render
+    page.wait_for_selector(".jp-Notebook-ExecutionIndicator[data-status='idle']", timeout=90_000)
+    restored = (
+        f"(() => {{ const p = document.querySelector({here + ' .ss-live'!r}); return !!p && "
+        "p.innerText.includes('Record a result') && p.innerText.includes('Chairs in 3D'); })()"
+    )
+    scroller = f"{here} .jp-WindowedPanel-outer"  # JupyterLab draws cells as they scroll into view
+    deadline = time.monotonic() + 90
+    while not page.evaluate(restored):  # the widgets drawn from the saved state, layouts and all
+        if time.monotonic() > deadline:
+            shot(page, "trusted-saved-widgets-missing")
+            raise AssertionError("the workbench widgets were not restored from the saved state")
+        page.evaluate(f"document.querySelector({scroller!r})?.scrollBy(0, 700)")
+        time.sleep(0.5)
+    page.wait_for_timeout(1_000)  # let the cells around it render (scrolled to above)
     shot(page, "trusted-saved-widgets")
-    assert "Record a result" in live.inner_text() and "Chairs in 3D" in live.inner_text()
     missing = [e for e in page.console_errors if "model" in e.lower() and ("not found" in e.lower() or "find" in e)]
     assert missing == []
 
