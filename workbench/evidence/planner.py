@@ -425,11 +425,16 @@ def _score(
     information is the entropy of the outcome weights; the expected number of
     survivors afterwards is the weighted mean of distinct names per outcome.
     """
-    weights: dict[str, float] = defaultdict(float)
-    groups: dict[str, dict[str, None]] = defaultdict(dict)
-    for i, (label, name) in enumerate(zip(labels, names, strict=True)):
-        weights[str(label)] += 1.0 if unit_weights is None else unit_weights[i]
-        groups[str(label)][name] = None
+    # one pass in C per step: label codes, weight per code (bincount), distinct (code, name) pairs in order
+    code_of: dict[str, int] = {}
+    codes = [code_of.setdefault(str(label), len(code_of)) for label in labels]
+    unit = np.ones(len(codes)) if unit_weights is None else np.asarray(unit_weights, dtype=float)
+    per_code = np.bincount(np.asarray(codes, dtype=np.int64), weights=unit, minlength=len(code_of)).tolist()
+    words = list(code_of)
+    weights: dict[str, float] = {words[k]: per_code[k] for k in range(len(words))}
+    groups: dict[str, dict[str, None]] = {w: {} for w in words}
+    for k, name in dict.fromkeys(zip(codes, names, strict=True)):
+        groups[words[k]][name] = None
     total = sum(weights.values())
     cost = cost_of(kind, fields.get("reaction"))
     return Experiment(
@@ -450,13 +455,16 @@ def _pair_experiments(uid: str, others: Sequence[str], worlds: list[dict[str, Ch
     for other in others:
         if other not in worlds[0]:
             continue
+        pairs = [(w[uid], w[other]) for w in worlds]
+        distinct = dict.fromkeys(pairs)  # many worlds share a pair: each pair is named and judged once
+        named = {(a, b): f"{uid}={display_name(a)}, {other}={display_name(b)}" for a, b in distinct}
+        names = [named[pair] for pair in pairs]
         for reaction in ("osazone", "alditol", "aldaric_acid"):
-            labels: list[Hashable] = []
-            names: list[str] = []
-            for w in worlds:
-                ka, kb = product_key(reaction, w[uid]), product_key(reaction, w[other])
-                labels.append("no product" if ka is None or kb is None else reactions.relation_of_sets(ka, kb))
-                names.append(f"{uid}={display_name(w[uid])}, {other}={display_name(w[other])}")
+            judged: dict[tuple[Chain, Chain], Hashable] = {}
+            for a, b in distinct:
+                ka, kb = product_key(reaction, a), product_key(reaction, b)
+                judged[(a, b)] = "no product" if ka is None or kb is None else reactions.relation_of_sets(ka, kb)
+            labels: list[Hashable] = [judged[pair] for pair in pairs]
             fields = {"reaction": reaction, "members": [uid, other]}
             title = f"compare the {reaction.replace('_', ' ')} of {uid} with that of {other}"
             yield "same_product", fields, title, labels, names
