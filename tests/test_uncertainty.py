@@ -285,6 +285,28 @@ def test_suspects_name_the_unreliable_record_first():
     assert data["suspects"][0] == {"observation": "E3", "probability_wrong": pytest.approx(solution.suspects[0][1])}
 
 
+def test_suspect_chances_follow_the_model_comparison_worked_by_hand():
+    """Two carbon counts that cannot both hold, with reliabilities 0.9 and 0.6.
+
+    Bayesian model comparison (common practice; the rule of Contract 3): the hypothesis "only E1 is wrong"
+    weighs (1 - 0.9) * 0.6 * flat * P(E2 alone | scope), and "only E2 is wrong" (1 - 0.6) * 0.9 * flat *
+    P(E1 alone | scope). Over the C5 and C6 aldoses and 2-ketoses of both series (36 candidates), a
+    count of 6 keeps 24 of them and a count of 5 keeps 12 (common practice: 16 aldohexoses, 8
+    ketohexoses, 8 aldopentoses, 4 ketopentoses); both records have the same flat likelihood (1/7).
+    So P(E1 wrong) = 0.1*0.6*24 / (0.1*0.6*24 + 0.4*0.9*12) = 1.44 / 5.76 = 0.25.
+    """
+    project = over_scope(
+        {"carbons": [5, 6]},
+        [
+            {"id": "E1", "kind": "carbon_count", "unknown": "U", "value": 5, "reliability": 0.9},
+            {"id": "E2", "kind": "carbon_count", "unknown": "U", "value": 6, "reliability": 0.6},
+        ],
+    )
+    chances = dict(solve(project).suspects)
+    assert chances["E1"] == pytest.approx(1.44 / 5.76, rel=1e-9)
+    assert chances["E2"] == pytest.approx(4.32 / 5.76, rel=1e-9)
+
+
 def test_solve_json_carries_probabilities_flags_and_entropy(tmp_path, capsys):
     path = tmp_path / "p.json"
     path.write_text(
