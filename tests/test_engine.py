@@ -220,6 +220,11 @@ _PARALLEL = [
 _HEXOSES = {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}
 
 
+def _osazone(oid: str, relation: str, a: str, b: str) -> dict:
+    """A same-osazone record between two unknowns."""
+    return {"id": oid, "kind": "same_product", "reaction": "osazone", "relation": relation, "members": [a, b]}
+
+
 @settings(max_examples=60, deadline=None, derandomize=True, suppress_health_check=[HealthCheck.too_slow])
 @given(small_projects())
 @example(project([{"id": "U0", "scope": _HEXOSES}, {"id": "U1", "scope": _HEXOSES}], _PARALLEL))
@@ -229,20 +234,8 @@ _HEXOSES = {"carbons": [6], "carbonyl": ["aldose"], "series": ["D"]}
     project(
         [{"id": "U0", "scope": SMALL[-1]}, {"id": "U1", "scope": SMALL[-1]}, {"id": "U2", "scope": SMALL[1]}],
         [
-            {
-                "id": "E0",
-                "kind": "same_product",
-                "reaction": "osazone",
-                "relation": "identical",
-                "members": ["U0", "U1"],
-            },
-            {
-                "id": "E1",
-                "kind": "same_product",
-                "reaction": "osazone",
-                "relation": "enantiomeric",
-                "members": ["U1", "U2"],
-            },
+            _osazone("E0", "identical", "U0", "U1"),
+            _osazone("E1", "enantiomeric", "U1", "U2"),
             {"id": "E2", "kind": "different", "members": ["U0", "U1"]},
         ],
     )
@@ -432,20 +425,8 @@ def test_narrowing_the_end_of_a_chain_reaches_its_far_end():
     p = project(
         [{"id": f"U{i}", "scope": scope} for i in range(3)],
         [
-            {
-                "id": "E0",
-                "kind": "same_product",
-                "reaction": "osazone",
-                "relation": "identical",
-                "members": ["U0", "U1"],
-            },
-            {
-                "id": "E1",
-                "kind": "same_product",
-                "reaction": "osazone",
-                "relation": "identical",
-                "members": ["U1", "U2"],
-            },
+            _osazone("E0", "identical", "U0", "U1"),
+            _osazone("E1", "identical", "U1", "U2"),
             # a meso aldaric acid: D-ribose, D-xylose, D-allose, D-galactose (common practice)
             {"id": "E2", "kind": "aldaric_acid", "unknown": "U0", "optically_active": False},
         ],

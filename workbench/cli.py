@@ -16,6 +16,7 @@ from collections.abc import Callable, Sequence
 
 from workbench.errors import ContradictionError, WorkbenchError
 from workbench.escaping import json_text, terminal_text
+from workbench.inputs import valid_text
 
 EXIT_OK, EXIT_BUG, EXIT_BAD_INPUT, EXIT_CONTRADICTION = 0, 1, 2, 3
 
@@ -419,7 +420,7 @@ def _garbled_text_argument(args: argparse.Namespace) -> str:
     for dest in _TEXT_ARGUMENTS:
         value = getattr(args, dest, None)
         for text in [value] if isinstance(value, str) else value or ():
-            if isinstance(text, str) and any("\ud800" <= ch <= "\udfff" for ch in text):
+            if isinstance(text, str) and not valid_text(text):
                 return f"argument '{dest}' is not valid UTF-8 text: {terminal_text(text, one_line=True)}"
     return ""
 

@@ -43,6 +43,7 @@ __all__ = [
     "parse_project_json",
     "check_tree",
     "show",
+    "valid_text",
 ]
 
 MAX_BYTES = 16 * 1024 * 1024  # a project of 10,000 observations with notes is about 3 MB
@@ -197,7 +198,7 @@ def _where(path: tuple[Any, ...], root: Any) -> str:
         items = root.get("observations")
         item = items[path[1]] if isinstance(items, list) and path[1] < len(items) else None
         oid = item.get("id") if isinstance(item, dict) else None
-        if isinstance(oid, str) and _valid_text(oid) and len(oid) <= 80:
+        if isinstance(oid, str) and valid_text(oid) and len(oid) <= 80:
             rest = "".join(f"[{p}]" if isinstance(p, int) else f".{p}" for p in path[3:])
             field = f", field '{path[2]}{rest}'" if len(path) > 2 else ""
             return f"observation {show(oid)[1:-1]}{field}"
@@ -207,7 +208,8 @@ def _where(path: tuple[Any, ...], root: Any) -> str:
     return text or "the file"
 
 
-def _valid_text(text: str) -> bool:
+def valid_text(text: str) -> bool:
+    """True when ``text`` is valid Unicode (no lone surrogate, as bytes that are not UTF-8 leave behind)."""
     try:
         text.encode("utf-8")
     except UnicodeEncodeError:
@@ -225,7 +227,7 @@ def check_tree(data: Any) -> list[str]:
             problems.append(f"{_where(path[:3], data)}: nested more than {MAX_DEPTH} levels deep")
             continue
         if isinstance(value, str):
-            if not _valid_text(value):
+            if not valid_text(value):
                 problems.append(
                     f"{_where(path, data)}: the text is not valid Unicode (a lone surrogate such as \\ud800)"
                 )
@@ -233,7 +235,7 @@ def check_tree(data: Any) -> list[str]:
                 problems.append(f"{_where(path, data)}: the text has {len(value):,} characters (limit {MAX_TEXT:,})")
         elif isinstance(value, dict):
             for key, item in value.items():
-                if not _valid_text(key):
+                if not valid_text(key):
                     problems.append(f"{_where(path, data)}: a field name is not valid Unicode")
                     continue
                 if len(key) > 200:

@@ -231,16 +231,12 @@ def _core_and_trees(
     ``(beliefs, log Z, core assignments, unknowns on cycles)`` (0 and 0 for
     a tree) or None above the limit.
     """
-    neighbours: dict[str, list[str]] = defaultdict(list)
-    for e in edges:
-        neighbours[e.a].append(e.b)
-        neighbours[e.b].append(e.a)
-    cyclic = two_core(group, neighbours)
-    core = cyclic or {group[0]}
     nbrs: dict[str, list[_Edge]] = defaultdict(list)
     for e in edges:
         nbrs[e.a].append(e)
         nbrs[e.b].append(e)
+    cyclic = two_core(group, {v: [e.other(v) for e in es] for v, es in nbrs.items()})
+    core = cyclic or {group[0]}
     parent: dict[str, tuple[str, _Edge]] = {}
     order: list[str] = []  # tree variables, nearest the core first
     queue = deque(sorted(core, key=group.index))
