@@ -1,4 +1,7 @@
-"""Entry fields of the residue kinds: lists of carbon numbers and of amounts typed as text."""
+"""Entry fields of the residue kinds: lists of carbon numbers and of amounts typed as text.
+
+No chemistry is checked here: only that what is typed reaches the observation model unchanged.
+"""
 
 from __future__ import annotations
 
